@@ -1,0 +1,6 @@
+#!/usr/bin/env node
+// Entry point of the `ergostat` command: registers the TypeScript loader, then runs the CLI.
+import { register } from 'tsx/esm/api';
+register();
+const { main } = await import('../src-main/cli.ts');
+process.exitCode = await main(process.argv.slice(2));
