@@ -25,3 +25,17 @@ export interface Recording {
 
 /** Right-hand side of dy/dt = f(t, y); writes f into dydt (length n) and must not keep references. */
 export type Rhs = (t: number, y: Float64Array, dydt: Float64Array) => void;
+
+/**
+ * A conserved-energy function H(q, v) with its Koopman eigenvalue, as the controller sees it
+ * (learned from data or written down analytically).
+ */
+export interface EnergyFunction {
+  coordinate: Coordinate;
+  /** H(q, v): joules when the model is calibrated, otherwise model units. */
+  H(q: number, v: number): number;
+  /** Writes [dH/dq, dH/dv] into out[0], out[1]. */
+  grad(q: number, v: number, out: Float64Array): void;
+  /** Koopman eigenvalue (1/s): 0 for a conservative system, slightly negative with light damping. */
+  lambda: number;
+}

@@ -1,0 +1,41 @@
+// The ergostat command line: one verb per module in ./cli/, dispatched from this table.
+// Exit codes: 0 success, 1 data error, 2 usage error, 3 no conserved energy found (learn).
+import { UsageError } from './cli/args.ts';
+
+export interface Io {
+  out: (line: string) => void;
+  err: (line: string) => void;
+}
+
+export type Verb = (argv: string[], io: Io) => Promise<number>;
+
+const verbs: Record<string, { summary: string; load: () => Promise<Verb> }> = {
+};
+
+function usage(): string {
+  const lines = ['usage: ergostat <verb> [arguments]', '', 'verbs:'];
+  for (const [name, v] of Object.entries(verbs)) lines.push(`  ${name.padEnd(8)} ${v.summary}`);
+  return lines.join('\n');
+}
+
+export async function main(argv: string[], io: Io = { out: (l) => console.log(l), err: (l) => console.error(l) }): Promise<number> {
+  const [verb, ...rest] = argv;
+  if (!verb || verb === '--help' || verb === '-h' || verb === 'help') {
+    io.out(usage());
+    return verb ? 0 : 2;
+  }
+  const entry = verbs[verb];
+  if (!entry) {
+    io.err(`ergostat: unknown verb "${verb}"\n${usage()}`);
+    return 2;
+  }
+  try {
+    return await (await entry.load())(rest, io);
+  } catch (e) {
+    if (e instanceof UsageError) {
+      io.err(`ergostat ${verb}: ${e.message}`);
+      return 2;
+    }
+    throw e;
+  }
+}
