@@ -1,0 +1,37 @@
+// The one table of operations the UI may ask for. Main (IPC), the preload, the renderer, the
+// browser bridge, the CLI and the tests all use this declaration; ./gate.ts validates every call
+// against it before a handler runs. Results are plain JSON-able data (typed arrays allowed over IPC).
+import { operation } from './define.ts';
+import * as v from './validate.ts';
+import type * as R from './results.ts';
+
+const path = v.string({ min: 1, max: 4096 });
+const id = v.number({ integer: true, min: 1 });
+const columnMapping = v.object({
+  time: v.string({ min: 1, max: 200 }),
+  position: v.string({ min: 1, max: 200 }),
+  run: v.optional(v.string({ min: 1, max: 200 })),
+  input: v.optional(v.string({ min: 1, max: 200 })),
+  angle: v.optional(v.boolean()),
+});
+
+export const operations = {
+  'app.info': operation<{}, R.AppInfo>('Version, file format version and the safety cautions.', v.object({})),
+  'project.state': operation<{}, R.ProjectSummary>('What the open project holds.', v.object({})),
+  'project.new': operation<{}, R.ProjectSummary>('Start an empty project (the caller confirms unsaved changes first).', v.object({})),
+  'project.open': operation<{ path: string }, R.ProjectSummary>('Open a .ergostat project file (checked, never trusted).', v.object({ path })),
+  'project.save': operation<{ path?: string }, R.ProjectSummary>('Save the project (atomically) to its path or a new one.', v.object({ path: v.optional(path) })),
+  'recordings.importFiles': operation<{ files: string[]; mapping: v.Infer<typeof columnMapping> }, R.ImportSummary>(
+    'Import CSV recordings from files.', v.object({ files: v.array(path, { min: 1, max: 200 }), mapping: columnMapping }), { long: true }),
+  'recordings.importText': operation<{ name: string; text: string; mapping: v.Infer<typeof columnMapping> }, R.ImportSummary>(
+    'Import one CSV recording given as text (drag-and-drop in browser mode).',
+    v.object({ name: v.string({ min: 1, max: 255 }), text: v.string({ max: 64 * 1024 * 1024 }), mapping: columnMapping })),
+  'recordings.demo': operation<{ rig: 'pendulum' | 'strip' }, R.ImportSummary>('Add the demo recordings of an invented rig.', v.object({ rig: v.literal('pendulum', 'strip') })),
+  'recordings.trace': operation<{ recording: number; run: number; maxPoints: number }, R.Trace>(
+    "One run's samples, decimated to at most maxPoints keeping each bucket's extremes.",
+    v.object({ recording: id, run: v.number({ integer: true, min: 0 }), maxPoints: v.number({ integer: true, min: 10, max: 200_000 }) })),
+} as const;
+
+export type Operations = typeof operations;
+export type OperationName = keyof Operations;
+export const operationNames = Object.keys(operations) as OperationName[];
