@@ -5,7 +5,7 @@ import { OperationError, type ArgsOf, type CallContext, type Operation, type Res
 import { ValidationError } from './validate.ts';
 
 export type Handlers<T extends Record<string, Operation<any, any>>> = {
-  [K in keyof T]: (args: ArgsOf<T[K]>, ctx: CallContext) => Promise<ResultOf<T[K]>> | ResultOf<T[K]>;
+  -readonly [K in keyof T]: (args: ArgsOf<T[K]>, ctx: CallContext) => Promise<ResultOf<T[K]>> | ResultOf<T[K]>;
 };
 
 export type SerializedError = { code: OperationError['code']; message: string };

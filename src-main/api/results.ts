@@ -37,3 +37,11 @@ export interface Trace {
   /** Whether the points were decimated (extremes kept per bucket). */
   decimated: boolean;
 }
+
+export interface DialogOpen {
+  paths: string[];
+}
+
+export interface DialogSave {
+  path: string | null;
+}

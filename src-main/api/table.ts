@@ -30,6 +30,10 @@ export const operations = {
   'recordings.trace': operation<{ recording: number; run: number; maxPoints: number }, R.Trace>(
     "One run's samples, decimated to at most maxPoints keeping each bucket's extremes.",
     v.object({ recording: id, run: v.number({ integer: true, min: 0 }), maxPoints: v.number({ integer: true, min: 10, max: 200_000 }) })),
+  'dialog.open': operation<{ kind: 'project' | 'recordings' }, R.DialogOpen>('Ask for files with the system dialog (desktop only).', v.object({ kind: v.literal('project', 'recordings') })),
+  'dialog.save': operation<{ kind: 'project' | 'json' | 'csv' | 'html' | 'svg' | 'png'; suggestedName: string }, R.DialogSave>(
+    'Ask where to save with the system dialog (desktop only).',
+    v.object({ kind: v.literal('project', 'json', 'csv', 'html', 'svg', 'png'), suggestedName: v.string({ max: 255 }) })),
 } as const;
 
 export type Operations = typeof operations;
