@@ -1,0 +1,2 @@
+// Special functions: the public face of engine/special.
+export { ellipK, ellipKm1, pendulumPeriod } from './ellipk.ts';
