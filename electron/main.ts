@@ -2,23 +2,25 @@
 // Everything that computes or stores lives in src-main/ and is reached through the operation table.
 import { app, BrowserWindow, dialog, ipcMain, Menu, session, shell, type MenuItemConstructorOptions } from 'electron';
 import { join } from 'node:path';
-import { pathToFileURL } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { createHandlers } from '../src-main/api/handlers.ts';
 import { MENU, type MenuCommand } from './channels.ts';
 import { hardenContents, hardenSession, secureWebPreferences } from './harden.ts';
 import { wireIpc } from './ipc.ts';
 
+// The main bundle is an ES module: derive its folder from import.meta.url.
+const here = fileURLToPath(new URL('.', import.meta.url));
 let mainWindow: BrowserWindow | null = null;
 let pendingOpen: string | null = process.argv.find((a) => a.endsWith('.ergostat')) ?? null;
 
 function rendererUrl(): string {
   const dev = process.env.ELECTRON_RENDERER_URL;
-  return dev ?? pathToFileURL(join(__dirname, '../renderer/index.html')).href;
+  return dev ?? pathToFileURL(join(here, '../renderer/index.html')).href;
 }
 
 function appOrigin(): string {
   const dev = process.env.ELECTRON_RENDERER_URL;
-  return dev ?? pathToFileURL(join(__dirname, '../renderer/')).href;
+  return dev ?? pathToFileURL(join(here, '../renderer/')).href;
 }
 
 function send(command: MenuCommand, arg?: string): void {
@@ -61,7 +63,7 @@ function createWindow(): void {
     title: 'Ergostat',
     show: false,
     backgroundColor: '#f7f6f2',
-    webPreferences: secureWebPreferences(join(__dirname, '../preload/preload.mjs')),
+    webPreferences: secureWebPreferences(join(here, '../preload/preload.cjs')),
   });
   hardenContents(mainWindow.webContents, appOrigin());
   mainWindow.once('ready-to-show', () => mainWindow?.show());

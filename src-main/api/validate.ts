@@ -27,6 +27,11 @@ export interface Validator<T> {
 
 export type Infer<V> = V extends Validator<infer T> ? T : never;
 
+type OptionalKeys<S> = { [K in keyof S]: undefined extends Infer<S[K]> ? K : never }[keyof S];
+type Simplify<T> = { [K in keyof T]: T[K] } & {};
+/** The parsed type of object(shape): fields whose validator admits undefined become optional. */
+export type ObjectOf<S> = Simplify<{ [K in Exclude<keyof S, OptionalKeys<S>>]: Infer<S[K]> } & { [K in OptionalKeys<S>]?: Infer<S[K]> }>;
+
 function make<T>(expected: string, parse: (x: unknown, path: string) => T): Validator<T> {
   return { expected, parse };
 }
@@ -89,7 +94,7 @@ export function numberArray(opts: { max?: number; min?: number } = {}): Validato
 }
 
 /** A plain object with exactly these keys (unknown keys are refused: a typo should not pass silently). */
-export function object<S extends Record<string, Validator<unknown>>>(shape: S): Validator<{ [K in keyof S]: Infer<S[K]> }> {
+export function object<S extends Record<string, Validator<unknown>>>(shape: S): Validator<ObjectOf<S>> {
   const keys = Object.keys(shape);
   const expected = `an object with fields ${keys.join(', ') || '(none)'}`;
   return make(expected, (x, path) => {
@@ -104,7 +109,7 @@ export function object<S extends Record<string, Validator<unknown>>>(shape: S): 
       const v = shape[k].parse((x as Record<string, unknown>)[k], `${path}.${k}`);
       if (v !== undefined) out[k] = v;
     }
-    return { ...out } as { [K in keyof S]: Infer<S[K]> };
+    return { ...out } as ObjectOf<S>;
   });
 }
 
