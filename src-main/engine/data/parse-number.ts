@@ -1,0 +1,121 @@
+// Byte-level decimal number parser for CSV fields.
+// Fast path: Clinger's exact case (W. D. Clinger, "How to read floating point numbers accurately",
+// PLDI 1990, the "fast path"): when the decimal significand M is below 2^53 and the decimal exponent
+// E satisfies |E| <= 22, both M and 10^|E| are exact doubles, so the one IEEE multiplication or
+// division M * 10^E (M / 10^-E) is correctly rounded and equals Number(text) bit for bit.
+// Anything else (more digits, huge exponents, quotes, odd spellings) is checked against a plain
+// decimal pattern and handed to Number(); "NaN", "Infinity", hex and the like are rejected.
+import { CR, NL, SPACE, TAB, decodeBytes, fieldEnd, unquoteField } from './csv-bytes.ts';
+
+export const NUM_OK = 0;
+/** The field is empty (or only blanks). */
+export const NUM_MISSING = 1;
+/** The field holds something that is not a finite decimal number. */
+export const NUM_INVALID = 2;
+
+/** Where a scan ended and how it went; reused between calls to avoid allocation. */
+export interface NumberScan {
+  /** Index of the byte that ended the field (delimiter, '\n' or the '\r' of "\r\n"). */
+  end: number;
+  status: number;
+  /** The field's text when status is not NUM_OK (for the error message). */
+  text: string;
+}
+
+export function numberScan(): NumberScan {
+  return { end: 0, status: NUM_OK, text: '' };
+}
+
+const POW10 = new Float64Array(23);
+for (let k = 0, p = 1; k <= 22; k++, p *= 10) POW10[k] = p; // 10^k, k <= 22, all exact in binary64
+const TWO53 = 9007199254740992;
+const DECIMAL = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+/**
+ * Parses the field starting at p (ending at delim, '\n' or "\r\n"); blanks around the number are
+ * allowed. Returns the value and sets out.end / out.status; on failure returns NaN with out.text set.
+ * The bytes from p must contain a '\n' (see csv-bytes.ts).
+ */
+export function scanNumber(b: Uint8Array, p: number, delim: number, out: NumberScan): number {
+  let i = p;
+  let c = b[i];
+  while (c === SPACE || (c === TAB && delim !== TAB)) c = b[++i];
+  let neg = false;
+  if (c === 45) { neg = true; c = b[++i]; } else if (c === 43) c = b[++i];
+  let m = 0;
+  let e10 = 0;
+  let digits = 0;
+  while (c >= 48 && c <= 57) {
+    m = m * 10 + (c - 48);
+    digits++;
+    c = b[++i];
+  }
+  if (c === 46) {
+    c = b[++i];
+    while (c >= 48 && c <= 57) {
+      m = m * 10 + (c - 48);
+      e10--;
+      digits++;
+      c = b[++i];
+    }
+  }
+  if (digits === 0) return slowNumber(b, p, delim, out);
+  if (c === 101 || c === 69) {
+    c = b[++i];
+    let eneg = false;
+    if (c === 45) { eneg = true; c = b[++i]; } else if (c === 43) c = b[++i];
+    if (!(c >= 48 && c <= 57)) return slowNumber(b, p, delim, out);
+    let e = 0;
+    while (c >= 48 && c <= 57) {
+      if (e < 100000) e = e * 10 + (c - 48);
+      c = b[++i];
+    }
+    e10 += eneg ? -e : e;
+  }
+  while (c === SPACE || (c === TAB && delim !== TAB)) c = b[++i];
+  if (!(c === delim || c === NL || (c === CR && b[i + 1] === NL))) return slowNumber(b, p, delim, out);
+  // m is exact while it stays below 2^53 (every partial sum is smaller than the final one).
+  if (m >= TWO53) return slowNumber(b, p, delim, out);
+  let v: number;
+  if (m === 0) v = 0;
+  else if (e10 >= 0) {
+    if (e10 > 22) return slowNumber(b, p, delim, out);
+    v = m * POW10[e10];
+  } else {
+    if (e10 < -22) return slowNumber(b, p, delim, out);
+    v = m / POW10[-e10];
+  }
+  out.end = i;
+  out.status = NUM_OK;
+  return neg ? -v : v;
+}
+
+/** The general case: find the field, check it is a plain decimal, let Number() round it. */
+function slowNumber(b: Uint8Array, p: number, delim: number, out: NumberScan): number {
+  const e = fieldEnd(b, p, delim);
+  out.end = e;
+  const text = unquoteField(decodeBytes(b, p, e));
+  if (text === '') {
+    out.status = NUM_MISSING;
+    out.text = '';
+    return NaN;
+  }
+  const v = DECIMAL.test(text) ? Number(text) : NaN;
+  if (!Number.isFinite(v)) {
+    out.status = NUM_INVALID;
+    out.text = text;
+    return NaN;
+  }
+  out.status = NUM_OK;
+  return v;
+}
+
+const encoder = new TextEncoder();
+
+/** Parses one number written as text with the same rules (NaN when it is not one); for tests and the UI. */
+export function parseNumberText(text: string): number {
+  const b = encoder.encode(text + '\n');
+  const out = numberScan();
+  const v = scanNumber(b, 0, NL, out);
+  return out.status === NUM_OK && out.end === b.length - 1 ? v : NaN;
+}
