@@ -12,7 +12,9 @@ interface MasterRow {
   sql: string | null;
 }
 
-const normalise = (sql: string | null): string => (sql ?? '').replace(/\s+/g, ' ').trim();
+/** Whitespace-insensitive form of a CREATE statement: runs of blanks become one, none around ( ) , */
+const normalise = (sql: string | null): string =>
+  (sql ?? '').replace(/\s+/g, ' ').replace(/ ?([(),]) ?/g, '$1').trim();
 const key = (r: MasterRow): string => `${r.type}\u0000${r.name}\u0000${r.tbl_name}\u0000${normalise(r.sql)}`;
 
 const expectedCache = new Map<number, Map<string, MasterRow>>();
