@@ -12,7 +12,7 @@
 // A stabilizing solution exists iff (A, B) is stabilizable and H has no eigenvalue on the
 // imaginary axis (Lancaster & Rodman 1995, "Algebraic Riccati Equations", Thm 7.2.4, from memory).
 import { CholeskyDecomposition, EigenvalueDecomposition, LuDecomposition, Matrix, QrDecomposition } from 'ml-matrix';
-import { expectShape, readMatrix, symmetrise, toMatrix, toRows, type MatrixInput } from './matrix-input.ts';
+import { expectShape, readMatrix, symmetrise, toMatrix, type MatrixInput } from './matrix-input.ts';
 
 export interface CareProblem {
   /** n x n state matrix, 1 <= n <= 8. */
@@ -297,4 +297,3 @@ function intOption(v: number | undefined, dflt: number, name: string): number {
   return v;
 }
 
-export { toRows };
