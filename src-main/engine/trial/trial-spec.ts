@@ -1,0 +1,169 @@
+// A trial described as plain data (JSON-safe), so that it can cross a worker-thread boundary or
+// be stored: the plant as an acceleration formula with parameters (the plant.json shape of
+// issue 4), the model energy as a formula, the controller design, and the simulation settings.
+// buildTrial() validates the description once, naming the field, and compiles it to the objects
+// simulate() drives; runTrialSpec() runs it and scores it.
+import type { Coordinate, EnergyFunction } from '../types.ts';
+import type { Controller, EstimatorOptions, SensorOptions, TrialPlant } from './types.ts';
+import { compileFormula, differentiate, parseFormula } from '../formula/index.ts';
+import { energyPump, openLoop } from './energy-pump.ts';
+import { simulate, type SimulateResult } from './simulate.ts';
+import { trialMetrics, type TrialMetrics } from './metrics.ts';
+import { sensorSigmas } from './energy-resolution.ts';
+import { Pcg32 } from '../signal/random.ts';
+
+/** plant.json: q'' = acceleration(q, v, u, t; params). */
+export interface PlantSpec {
+  coordinate: Coordinate;
+  acceleration: string;
+  params: Record<string, number>;
+}
+
+/** The model's energy H(q, v; params) as a formula, with its Koopman eigenvalue. */
+export interface EnergySpec {
+  H: string;
+  params?: Record<string, number>;
+  lambda?: number;
+}
+
+export type ControllerSpec =
+  | { kind: 'energy-pump'; target: number; gain: number; uMax?: number; inputGain?: number; eps?: number; integral?: number }
+  | { kind: 'open-loop' };
+
+export interface TrialSpec {
+  plant: PlantSpec;
+  energy: EnergySpec;
+  controller: ControllerSpec;
+  q0: number;
+  v0: number;
+  duration: number;
+  rateHz?: number;
+  innerSteps?: number;
+  delaySamples?: number;
+  sensor?: SensorOptions;
+  /** 'difference' (default, optional cutoffHz) or 'observer' on the nominal plant formula, or 'ideal'. */
+  estimator?: { kind: 'difference'; cutoffHz?: number } | { kind: 'observer'; bandwidthHz?: number; zeta?: number } | { kind: 'ideal' };
+  /** Seed of the sensor noise (PCG32, stream = noiseStream). Default 0. */
+  noiseSeed?: number;
+  noiseStream?: number;
+  /** Metric settings: target energy and weights. */
+  metrics: { target: number; Q?: number; R?: number; bandRelative?: number };
+}
+
+export interface BuiltTrial {
+  plant: TrialPlant;
+  /** The plant with its nominal parameters (for an observer on the model). */
+  nominal: TrialPlant;
+  energy: EnergyFunction;
+  controller: Controller;
+}
+
+function isObject(x: unknown): x is Record<string, unknown> {
+  return typeof x === 'object' && x !== null && !Array.isArray(x);
+}
+
+function finite(x: unknown, where: string): number {
+  if (typeof x !== 'number' || !Number.isFinite(x)) throw new RangeError(`${where}: expected a finite number, got ${JSON.stringify(x)}`);
+  return x;
+}
+
+function checkParams(p: unknown, where: string): Record<string, number> {
+  if (p === undefined) return {};
+  if (!isObject(p)) throw new TypeError(`${where}: expected an object of name: number`);
+  for (const [k, v] of Object.entries(p)) finite(v, `${where}.${k}`);
+  return p as Record<string, number>;
+}
+
+/** Compiles q'' = acceleration(q, v, u, t) with the given parameter values (overriding spec.params). */
+export function compilePlantSpec(spec: PlantSpec, params: Record<string, number> = spec.params, where = 'plant'): TrialPlant {
+  if (!isObject(spec)) throw new TypeError(`${where}: expected an object {coordinate, acceleration, params}`);
+  if (spec.coordinate !== 'angle' && spec.coordinate !== 'linear') throw new TypeError(`${where}.coordinate: expected "angle" or "linear", got ${JSON.stringify(spec.coordinate)}`);
+  if (typeof spec.acceleration !== 'string') throw new TypeError(`${where}.acceleration: expected a formula string`);
+  checkParams(params, `${where}.params`);
+  let f;
+  try {
+    f = compileFormula(spec.acceleration, ['q', 'v', 'u', 't'], { constants: params });
+  } catch (e) {
+    throw new TypeError(`${where}.acceleration: ${(e as Error).message}`);
+  }
+  const x = new Float64Array(4);
+  return {
+    coordinate: spec.coordinate,
+    accel(q, v, u, t) { x[0] = q; x[1] = v; x[2] = u; x[3] = t; return f.eval(x); },
+  };
+}
+
+/** Compiles the model energy H(q, v) and its gradient (symbolic derivatives, formula/differentiate). */
+export function compileEnergySpec(spec: EnergySpec, coordinate: Coordinate, where = 'energy'): EnergyFunction {
+  if (!isObject(spec)) throw new TypeError(`${where}: expected an object {H, params, lambda}`);
+  if (typeof spec.H !== 'string') throw new TypeError(`${where}.H: expected a formula string in q and v`);
+  const params = checkParams(spec.params, `${where}.params`);
+  const lambda = spec.lambda === undefined ? 0 : finite(spec.lambda, `${where}.lambda`);
+  let H, Hq, Hv;
+  try {
+    const ast = parseFormula(spec.H);
+    const vars = ['q', 'v'];
+    H = compileFormula(ast, vars, { constants: params });
+    Hq = compileFormula(differentiate(ast, 'q'), vars, { constants: params });
+    Hv = compileFormula(differentiate(ast, 'v'), vars, { constants: params });
+  } catch (e) {
+    throw new TypeError(`${where}.H: ${(e as Error).message}`);
+  }
+  const x = new Float64Array(2);
+  return {
+    coordinate,
+    lambda,
+    H(q, v) { x[0] = q; x[1] = v; return H.eval(x); },
+    grad(q, v, out) { x[0] = q; x[1] = v; out[0] = Hq.eval(x); out[1] = Hv.eval(x); },
+  };
+}
+
+export function buildController(spec: ControllerSpec, energy: EnergyFunction, where = 'controller'): Controller {
+  if (!isObject(spec)) throw new TypeError(`${where}: expected an object with a kind`);
+  if (spec.kind === 'open-loop') return openLoop();
+  if (spec.kind === 'energy-pump') {
+    return energyPump({ energy, target: finite(spec.target, `${where}.target`), gain: finite(spec.gain, `${where}.gain`), uMax: spec.uMax, inputGain: spec.inputGain, eps: spec.eps, integral: spec.integral });
+  }
+  throw new TypeError(`${where}.kind: expected "energy-pump" or "open-loop", got ${JSON.stringify((spec as { kind: unknown }).kind)}`);
+}
+
+/** Validates and compiles a trial; `params` replaces the plant's parameter values (mismatch). */
+export function buildTrial(spec: TrialSpec, params?: Record<string, number>): BuiltTrial {
+  if (!isObject(spec)) throw new TypeError('trial: expected an object');
+  const plant = compilePlantSpec(spec.plant, params ?? spec.plant?.params, 'trial.plant');
+  const nominal = params ? compilePlantSpec(spec.plant, spec.plant.params, 'trial.plant') : plant;
+  const energy = compileEnergySpec(spec.energy, spec.plant.coordinate, 'trial.energy');
+  const controller = buildController(spec.controller, energy, 'trial.controller');
+  return { plant, nominal, energy, controller };
+}
+
+export interface TrialOutcome {
+  status: SimulateResult['status'];
+  message: string;
+  converged: boolean;
+  metrics: TrialMetrics | null;
+}
+
+/** Runs one described trial (optionally with replaced plant parameters) and scores it. */
+export function runTrialSpec(spec: TrialSpec, params?: Record<string, number>): { outcome: TrialOutcome; result: SimulateResult } {
+  const built = buildTrial(spec, params);
+  if (!isObject(spec.metrics)) throw new TypeError('trial.metrics: expected an object {target, Q, R}');
+  const target = finite(spec.metrics.target, 'trial.metrics.target');
+  const rng = new Pcg32(spec.noiseSeed ?? 0, spec.noiseStream ?? 0);
+  let estimator: EstimatorOptions;
+  const e = spec.estimator ?? { kind: 'difference' };
+  if (e.kind === 'observer') estimator = { kind: 'observer', model: built.nominal, bandwidthHz: e.bandwidthHz, zeta: e.zeta };
+  else if (e.kind === 'difference' || e.kind === 'ideal') estimator = e;
+  else throw new TypeError(`trial.estimator.kind: expected "difference", "observer" or "ideal", got ${JSON.stringify((e as { kind: unknown }).kind)}`);
+  const result = simulate({
+    plant: built.plant, energy: built.energy, controller: built.controller,
+    q0: spec.q0, v0: spec.v0, duration: spec.duration, rateHz: spec.rateHz, innerSteps: spec.innerSteps,
+    delaySamples: spec.delaySamples, sensor: spec.sensor, estimator, random: () => rng.uniform(),
+  });
+  const T = result.diagnostics.T;
+  const metrics = result.trace.t.length >= 2
+    ? trialMetrics(result.trace, { ...spec.metrics, target, energy: built.energy, sensor: sensorSigmas(result.diagnostics.sensorStep, spec.sensor?.noiseStd ?? 0, T, estimator) })
+    : null;
+  const converged = result.status === 'ok' && metrics !== null && metrics.converged;
+  return { outcome: { status: result.status, message: result.message, converged, metrics }, result };
+}
