@@ -54,6 +54,7 @@ function chiSquareMeanQuantile(nu: number, p: number): number {
 function halfWindowGrid(order: number, mMax: number): number[] {
   const out: number[] = [];
   for (let m = Math.max(1, Math.ceil(order / 2)); m <= mMax; m = m < 40 ? m + 1 : Math.ceil(m * 1.06)) out.push(m);
+  if (out.length > 0 && out[out.length - 1] < mMax) out.push(mMax);
   return out;
 }
 
