@@ -222,8 +222,13 @@ export function solveDopri5(rhs: Rhs, tSpan: readonly [number, number], y0: Arra
     let last = false;
     if ((t + 1.01 * h - t1) * dir >= 0) { h = t1 - t; last = true; }
     if (Math.abs(h) <= 10 * Number.EPSILON * Math.abs(t) || t + h === t) {
-      status = 'step-too-small';
-      message = `step size ${h} too small at t = ${t}: the solution may be singular or the problem stiff`;
+      if (nonFiniteRun > 0) {
+        status = 'non-finite';
+        message = `rhs returned non-finite values just after t = ${t}, even for the smallest step`;
+      } else {
+        status = 'step-too-small';
+        message = `step size ${h} too small at t = ${t}: the solution may be singular or the problem stiff`;
+      }
       break;
     }
     // Stages (HNW Table 5.2); k1 holds f(t, y) from the previous step's last stage (FSAL).

@@ -36,3 +36,30 @@ export const firstOrder = (s: Conservative): Rhs => (_t, y, d) => {
 };
 
 export const rel = (a: number, b: number): number => Math.abs(a - b) / Math.abs(b);
+
+/**
+ * Period of a closed orbit released from rest at q0, by quadrature of T = 2 ∫ dq / sqrt(2 (E - V(q)))
+ * between the turning points (elementary mechanics). With q = mid + half sin(s) the integrand becomes a
+ * smooth function of sin(s) (the square-root end singularities cancel against dq = half cos(s) ds), so
+ * the midpoint rule over s in (-pi/2, pi/2) converges spectrally (half of a full-period trapezoid
+ * rule; common practice). Independent of the ODE solvers. The far turning point is found by bisection.
+ */
+export function orbitPeriod(s: Conservative, q0: number): number {
+  const E = s.V(q0);
+  // The other turning point: walk left from q0 until V rises back to E, then bisect.
+  let lo = q0;
+  const step = 1e-3 * Math.max(1, Math.abs(q0));
+  let x = q0 - step;
+  while (s.V(x) < E) { lo = x; x -= step; }
+  let a = x, b = lo; // V(a) >= E > V(b)
+  for (let i = 0; i < 200; i++) { const m = 0.5 * (a + b); if (s.V(m) >= E) a = m; else b = m; }
+  const qLeft = 0.5 * (a + b);
+  const mid = 0.5 * (q0 + qLeft), half = 0.5 * (q0 - qLeft);
+  const N = 2000;
+  let sum = 0;
+  for (let j = 0; j < N; j++) {
+    const sj = -Math.PI / 2 + (Math.PI * (j + 0.5)) / N;
+    sum += (half * Math.cos(sj)) / Math.sqrt(2 * (E - s.V(mid + half * Math.sin(sj))));
+  }
+  return 2 * sum * (Math.PI / N);
+}
