@@ -1,6 +1,7 @@
 // Symbolic differentiation of a formula tree by the usual rules of calculus (sum, product,
-// quotient, power and chain rules; e.g. Abramowitz & Stegun 3.3 and 4.3 for the derivatives of
-// the elementary functions), simplified as it is built (build.ts). min and max are rewritten
+// quotient, power and chain rules, and the table of derivatives of the elementary functions
+// found in any calculus text, e.g. Abramowitz & Stegun ch. 4, from memory), simplified as it is
+// built (build.ts). min and max are rewritten
 // through min(a, b) = (a + b - |a - b|)/2, max(a, b) = (a + b + |a - b|)/2, whose derivative is
 // (a' + b' -+ sign(a - b) (a' - b'))/2: exact wherever a != b, the mean of the two at a tie.
 import type { Ast, CallNode } from './ast.ts';
