@@ -12,9 +12,13 @@
 
 /** Gain k with u_feedback = -k z; pure function. */
 export function levelHoldGain(lambda: number, b: number, Q: number, R: number, eps: number): number {
-  const beta2 = b * b + eps * eps;
-  if (lambda === 0) return beta2 > 0 ? (Math.sqrt(Q / R) * b) / Math.sqrt(beta2) : 0;
-  const s = Math.sqrt(lambda * lambda + (Q * beta2) / R);
+  if (lambda === 0) {
+    // eps = 0: the plain law, sign(b) exactly (sign(0) = 0: no authority at a turning point).
+    return eps === 0 ? Math.sqrt(Q / R) * Math.sign(b) : (Math.sqrt(Q / R) * b) / Math.hypot(b, eps);
+  }
+  const beta = eps === 0 ? Math.abs(b) : Math.hypot(b, eps);
+  const s = Math.sqrt(lambda * lambda + (Q * beta * beta) / R);
   if (lambda < 0) return (Q * b) / (R * (s - lambda));
-  return beta2 > 0 ? ((lambda + s) * b) / beta2 : 0;
+  if (beta === 0) return 0;
+  return ((lambda + s) * (b / beta)) / beta;
 }

@@ -37,8 +37,8 @@ export interface LevelHoldDesign {
   rateMax?: number;
   /** <b^2> on the orbit at H* (meanSquareInputGain); given: adds u_ff = -lambda H* b / <b^2>. */
   meanB2?: number;
-  /** Integral action: weight Qw on w^2. */
-  integral?: { Qw: number };
+  /** Integral action: weight Qw on w^2; anti-windup 'conditional' (default) or 'none' (for comparison only). */
+  integral?: { Qw: number; antiWindup?: 'conditional' | 'none' };
 }
 
 export interface LevelHoldState { q: number; v: number; t: number }
@@ -89,6 +89,9 @@ export function makeLevelHold(design: LevelHoldDesign): LevelHold {
   const meanB2 = design.meanB2 === undefined ? 0 : positive(design.meanB2, 'design.meanB2');
   const integral = design.integral !== undefined;
   const Qw = integral ? positive(design.integral?.Qw, 'design.integral.Qw') : 0;
+  const aw = design.integral?.antiWindup ?? 'conditional';
+  if (aw !== 'conditional' && aw !== 'none') throw new RangeError(`design.integral.antiWindup: expected 'conditional' or 'none', got ${String(aw)}`);
+  const clamp = aw === 'conditional';
   const eps2 = eps * eps;
 
   const grad = new Float64Array(2);
@@ -127,7 +130,7 @@ export function makeLevelHold(design: LevelHoldDesign): LevelHold {
     if (integral) {
       const dw = z * dt;
       // Clamping: skip the update when limited and -kw dw has the sign of (cmd - u).
-      if (!saturated || -kw * dw * (cmd - u) <= 0) internal.w += dw;
+      if (!clamp || !saturated || -kw * dw * (cmd - u) <= 0) internal.w += dw;
     }
     internal.uPrev = u;
     const o = out ?? { u: 0, z: 0, b: 0, saturated: false, w: 0, riccatiOk: true };
