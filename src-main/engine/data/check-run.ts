@@ -13,6 +13,8 @@ import { estimateQuantization } from './quantization.ts';
 import type { Notice, RunStats } from './types.ts';
 import { unwrapAngle } from './unwrap.ts';
 
+const STEP_SAMPLE = 1 << 16;
+
 /** A run as the parser collected it: one label of the run column (or the whole file). */
 export interface RawRun {
   /** File as the caller named it, and its name in messages. */
@@ -57,6 +59,7 @@ function lineOfSample(raw: RawRun, i: number): number {
   return raw.firstLine + i + lo;
 }
 
+/** Checks one run. Takes ownership of raw's arrays (an angle is unwrapped in place). */
 export function checkRun(raw: RawRun, ctx: RunContext): CheckedRun {
   const { t, q, u, file, display } = raw;
   const { columns, opts } = ctx;
@@ -70,10 +73,13 @@ export function checkRun(raw: RawRun, ctx: RunContext): CheckedRun {
     throw fail(`${what} has ${plural(n, 'sample')} (${span}); at least ${opts.minSamples} are needed`, raw.firstLine, columns.run ?? columns.time);
   }
 
-  // Median time step (steps are strictly positive: the parser has checked the order).
-  const steps = new Float64Array(n - 1);
-  for (let i = 1; i < n; i++) steps[i - 1] = t[i] - t[i - 1];
-  const h = selectInPlace(steps, (n - 1) >> 1);
+  // Median time step (steps are strictly positive: the parser has checked the order); on long
+  // runs, the median of STEP_SAMPLE evenly spaced steps, which is as good for a regular clock.
+  const m = n - 1;
+  const stride = Math.max(1, Math.ceil(m / STEP_SAMPLE));
+  const steps = new Float64Array(Math.ceil(m / stride));
+  for (let i = 0, k = 0; i < m; i += stride, k++) steps[k] = t[i + 1] - t[i];
+  const h = selectInPlace(steps, steps.length >> 1);
   const tol = opts.irregularTolerance;
   const lo = h * (1 - tol);
   const hi = h * (1 + tol);
@@ -109,7 +115,7 @@ export function checkRun(raw: RawRun, ctx: RunContext): CheckedRun {
   const notice = (code: string, message: string): Notice => ({ code, file, run: raw.name, message });
 
   // Warnings on the channel as recorded (before unwrapping, which would break the ADC's grid).
-  const clip = findClipping(q, opts.clipSamples);
+  const clip = findClipping(q, opts.clipSamples, { min: qmin, max: qmax });
   for (const [sideName, s] of [['minimum', clip.min], ['maximum', clip.max]] as const) {
     if (s.stretches === 0) continue;
     const a = s.longestStart;
@@ -118,7 +124,7 @@ export function checkRun(raw: RawRun, ctx: RunContext): CheckedRun {
       `${display} ${what}: ${pos} sits at its ${sideName} ${fmt(s.value)} ${unit} for ${s.longestLength} consecutive samples ` +
         `(lines ${lineOf(a)}–${lineOf(a + s.longestLength - 1)})${more}; the sensor may be clipping`));
   }
-  const quant = estimateQuantization(q);
+  const quant = estimateQuantization(q, { min: qmin, max: qmax });
   if (quant !== undefined && quant.levels < opts.quantLevels) {
     warnings.push(notice('quantization',
       `${display} ${what}: ${pos} is heavily quantized: step ${fmt(quant.step, 4)} ${unit}, ${quant.levels} levels over its range ` +
@@ -148,11 +154,8 @@ export function checkRun(raw: RawRun, ctx: RunContext): CheckedRun {
     }
     const name = whole ? raw.name : `${raw.name} [${fmt(t[a])}..${fmt(t[b - 1])} s]`;
     let pq: Float64Array;
-    if (ctx.angle) {
-      const w = unwrapAngle(q.subarray(a, b));
-      pq = w.q;
-      wraps += w.wraps;
-    } else pq = whole ? q : q.slice(a, b);
+    pq = whole ? q : q.slice(a, b);
+    if (ctx.angle) wraps += unwrapAngle(pq, pq).wraps; // in place: pq is ours
     const run: Run = { name, source: file, t: whole ? t : t.slice(a, b), q: pq };
     if (u !== undefined) run.u = whole ? u : u.slice(a, b);
     runs.push(run);

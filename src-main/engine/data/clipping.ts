@@ -39,14 +39,20 @@ function side(x: Float64Array, value: number, minRun: number): ClipSide {
   return s;
 }
 
-export function findClipping(x: Float64Array, minRun: number): Clipping {
+/** Stretches at the minimum and the maximum of x (pass them in when known, to save a pass). */
+export function findClipping(x: Float64Array, minRun: number, range?: { min: number; max: number }): Clipping {
   if (!Number.isInteger(minRun) || minRun < 1) throw new RangeError(`findClipping: minRun must be a positive integer, got ${minRun}`);
   let lo = Infinity;
   let hi = -Infinity;
-  for (let i = 0; i < x.length; i++) {
-    const v = x[i];
-    if (v < lo) lo = v;
-    if (v > hi) hi = v;
+  if (range !== undefined) {
+    lo = range.min;
+    hi = range.max;
+  } else {
+    for (let i = 0; i < x.length; i++) {
+      const v = x[i];
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+    }
   }
   return { min: side(x, lo, minRun), max: side(x, hi, minRun) };
 }

@@ -97,7 +97,9 @@ export class CsvStreamParser {
   }
 
   /** Feeds the next bytes of the file. The chunk is not kept: it may be reused by the caller. */
-  push(chunk: Uint8Array): void {
+  push(bytes: Uint8Array): void {
+    // One plain Uint8Array view (not a Buffer subclass), so the hot loops see a single element kind.
+    const chunk = bytes.constructor === Uint8Array ? bytes : new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.length);
     const n = chunk.length;
     let p = 0;
     if (this.carry.len > 0 || this.header === undefined) {

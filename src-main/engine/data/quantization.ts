@@ -58,14 +58,20 @@ function onGrid(x: Float64Array, x0: number, step: number): boolean {
 }
 
 /** The grid the samples lie on, or undefined when they lie on no common grid (or are constant). */
-export function estimateQuantization(x: Float64Array): Quantization | undefined {
+/** (Pass the min and max of x when known, to save a pass.) */
+export function estimateQuantization(x: Float64Array, known?: { min: number; max: number }): Quantization | undefined {
   const n = x.length;
   let lo = Infinity;
   let hi = -Infinity;
-  for (let i = 0; i < n; i++) {
-    const v = x[i];
-    if (v < lo) lo = v;
-    if (v > hi) hi = v;
+  if (known !== undefined) {
+    lo = known.min;
+    hi = known.max;
+  } else {
+    for (let i = 0; i < n; i++) {
+      const v = x[i];
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+    }
   }
   const range = hi - lo;
   if (!(range > 0)) return undefined;

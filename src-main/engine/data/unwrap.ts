@@ -12,21 +12,29 @@ export interface Unwrapped {
   wraps: number;
 }
 
-export function unwrapAngle(angle: ArrayLike<number>): Unwrapped {
+/**
+ * Unwraps `angle` into a new array, or into `out` when given (same length; may be `angle` itself
+ * when the caller owns that array).
+ */
+export function unwrapAngle(angle: ArrayLike<number>, out?: Float64Array): Unwrapped {
   const n = angle.length;
-  const q = new Float64Array(n);
+  if (out !== undefined && out.length !== n) throw new RangeError(`unwrapAngle: out must have the length of angle (${n}), got ${out.length}`);
+  const q = out ?? new Float64Array(n);
   if (n === 0) return { q, wraps: 0 };
   let turns = 0; // integer count of 2 pi added so far, so the offset never drifts
   let wraps = 0;
-  q[0] = angle[0];
+  let prev = angle[0];
+  q[0] = prev;
   for (let i = 1; i < n; i++) {
-    const d = angle[i] - angle[i - 1];
+    const a = angle[i]; // read before writing: out may alias angle
+    const d = a - prev;
     if (d > Math.PI || d < -Math.PI) {
       const k = Math.round(d / TWO_PI);
       turns -= k;
       wraps += Math.abs(k);
     }
-    q[i] = angle[i] + turns * TWO_PI;
+    q[i] = a + turns * TWO_PI;
+    prev = a;
   }
   return { q, wraps };
 }
