@@ -63,8 +63,16 @@ export class Collection<T extends { name: string }> {
     return true;
   }
 
-  /** The entries themselves, for saving (not copied: callers must not change them). */
-  internal(): readonly T[] {
+  /**
+   * The stored entry itself, not a copy: for summaries and plots of large recordings, where a
+   * copy would cost too much. Treat it as read-only; a change would alter the project silently.
+   */
+  peek(name: string): Readonly<T> | undefined {
+    return this.#items.find((x) => x.name === name);
+  }
+
+  /** All stored entries themselves, in order (read-only, as for peek). */
+  peekAll(): readonly Readonly<T>[] {
     return this.#items;
   }
 

@@ -95,11 +95,11 @@ export class ProjectStore {
     };
     const report = saveSnapshot(path, {
       info,
-      recordings: [...this.recordings.internal()],
-      models: [...this.models.internal()],
-      designs: [...this.designs.internal()],
-      trials: [...this.trials.internal()],
-      notes: [...this.notes.internal()],
+      recordings: [...this.recordings.peekAll()],
+      models: [...this.models.peekAll()],
+      designs: [...this.designs.peekAll()],
+      trials: [...this.trials.peekAll()],
+      notes: [...this.notes.peekAll()],
     }, options);
     this.#info = info;
     return report;

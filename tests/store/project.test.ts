@@ -118,6 +118,9 @@ describe('ProjectStore entries', () => {
     expect(got.importSettings).toEqual({ delimiter: ';' });
     got.recording.runs[0].q[1] = 42;
     expect(p.recordings.get('x')!.recording.runs[0].q[1]).not.toBe(42);
+    // peek hands out the stored entry itself (no copy), for summaries of big recordings.
+    expect(p.recordings.peek('x')).toBe(p.recordings.peekAll()[0]);
+    expect(p.recordings.peek('x')!.recording.runs[0].q[1]).toBe(got.recording.runs[0].q[1] === 42 ? q[1] : NaN);
   });
 
   it('replaces an entry of the same name in place and keeps the order', () => {
