@@ -7,6 +7,7 @@ import type { Coordinate, EnergyFunction } from '../types.ts';
 import type { Controller, EstimatorOptions, SensorOptions, TrialPlant } from './types.ts';
 import { compileFormula, differentiate, parseFormula } from '../formula/index.ts';
 import { energyPump, openLoop } from './energy-pump.ts';
+import { levelHoldController } from './level-hold-adapter.ts';
 import { simulate, type SimulateResult } from './simulate.ts';
 import { trialMetrics, type TrialMetrics } from './metrics.ts';
 import { sensorSigmas } from './energy-resolution.ts';
@@ -26,7 +27,23 @@ export interface EnergySpec {
   lambda?: number;
 }
 
+/** The level-hold design as plain data: LevelHoldDesign of engine/control without the energy (taken from trial.energy). */
+export interface LevelHoldSpec {
+  kind: 'level-hold';
+  target: number;
+  inputGain: number;
+  Q: number;
+  R: number;
+  eps?: number;
+  lambda?: number;
+  uMax?: number;
+  rateMax?: number;
+  meanB2?: number;
+  integral?: { Qw: number; antiWindup?: 'conditional' | 'none' };
+}
+
 export type ControllerSpec =
+  | LevelHoldSpec
   | { kind: 'energy-pump'; target: number; gain: number; uMax?: number; inputGain?: number; eps?: number; integral?: number }
   | { kind: 'open-loop' };
 
@@ -119,12 +136,19 @@ export function compileEnergySpec(spec: EnergySpec, coordinate: Coordinate, wher
 }
 
 export function buildController(spec: ControllerSpec, energy: EnergyFunction, where = 'controller'): Controller {
-  if (!isObject(spec)) throw new TypeError(`${where}: expected an object with a kind`);
+  if (typeof spec !== 'object' || spec === null) throw new TypeError(`${where}: expected an object with a kind`);
   if (spec.kind === 'open-loop') return openLoop();
+  if (spec.kind === 'level-hold') {
+    // Field errors come from makeLevelHold as "design.<field>", i.e. <where>.<field>.
+    return levelHoldController({
+      energy, target: spec.target, inputGain: spec.inputGain, Q: spec.Q, R: spec.R, eps: spec.eps, lambda: spec.lambda,
+      uMax: spec.uMax, rateMax: spec.rateMax, meanB2: spec.meanB2, integral: spec.integral,
+    });
+  }
   if (spec.kind === 'energy-pump') {
     return energyPump({ energy, target: finite(spec.target, `${where}.target`), gain: finite(spec.gain, `${where}.gain`), uMax: spec.uMax, inputGain: spec.inputGain, eps: spec.eps, integral: spec.integral });
   }
-  throw new TypeError(`${where}.kind: expected "energy-pump" or "open-loop", got ${JSON.stringify((spec as { kind: unknown }).kind)}`);
+  throw new TypeError(`${where}.kind: expected "level-hold", "energy-pump" or "open-loop", got ${JSON.stringify((spec as { kind: unknown }).kind)}`);
 }
 
 /** Validates and compiles a trial; `params` replaces the plant's parameter values (mismatch). */
