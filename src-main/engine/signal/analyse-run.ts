@@ -34,8 +34,9 @@ export interface AnalyseRunOptions {
   equilibrium?: number;
 }
 
-/** Relative deviation of any sampling interval from the mean one that is still called uniform. */
-const UNIFORM_TOLERANCE = 1e-3;
+/** Relative deviation of any sampling interval from the mean one that is still called uniform
+ *  (the import's default irregularTolerance, so every imported run passes). */
+const UNIFORM_TOLERANCE = 0.01;
 const MIN_SAMPLES = 64;
 
 export function analyseRun(run: Run, coordinate: Coordinate, opts: AnalyseRunOptions = {}): RunAnalysis {

@@ -145,13 +145,14 @@ export function chooseSavgol(x: Float64Array, dt: number, noise?: NoiseEstimate,
     // Only reachable with a fixed half window too short for every candidate order.
     throw new RangeError(`chooseSavgol: override.halfWindow ${fixedM} leaves no order in {${ORDERS.join(', ')}} with a window exceeding it`);
   }
-  const fixedText = fixedM !== undefined && fixedP !== undefined ? 'given by the caller'
-    : fixedM !== undefined ? 'half window given, order chosen'
-    : fixedP !== undefined ? 'order given, half window chosen' : 'chosen';
+  const how = fixedM !== undefined && fixedP !== undefined ? 'given by the caller'
+    : fixedM !== undefined ? 'half window given, order chosen by the smallest estimated velocity error'
+    : fixedP !== undefined ? 'order given, half window chosen by the smallest estimated velocity error'
+    : 'chosen by the smallest estimated velocity error';
   const band = bins.count === 0
     ? 'no oscillation stands above the noise floor, so the widest window was taken'
     : `signal above the noise floor up to ${bins.fmax.toPrecision(3)} Hz`;
-  const reason = `${fixedText} by the smallest estimated velocity error: noise sigma ${est.sigma.toPrecision(3)}, ${band}; `
+  const reason = `${how}: noise sigma ${est.sigma.toPrecision(3)}, ${band}; `
     + `estimated RMS velocity error ${Math.sqrt(best.s.mse).toPrecision(3)} (noise ${Math.sqrt(best.s.noise2).toPrecision(3)}, bias ${Math.sqrt(best.s.bias2).toPrecision(3)})`;
   return {
     halfWindow: best.m,

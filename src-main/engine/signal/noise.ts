@@ -3,8 +3,9 @@
 // C(2k, k) s^2 (binomial identity sum_i C(k,i)^2 = C(2k,k)), while a smooth signal's k-th
 // difference shrinks like (omega dt)^k (Rice, Ann. Stat. 12 (1984) 1215, for k = 1; the higher
 // orders follow Hall, Kay & Titterington, Biometrika 77 (1990) 521). The spread of the
-// differences is measured robustly by the median absolute deviation, MAD / 0.6745 for a normal
-// law (Hampel, JASA 69 (1974) 383), so outliers and a few glitches do not inflate it.
+// differences is their standard deviation after dropping those beyond 5 robust sigmas, the
+// robust sigma being 1.4826 x the median absolute deviation (Hampel, JASA 69 (1974) 383), so a
+// few glitches do not inflate it.
 // Quantization: a reading rounded to a step q carries an error uniform on [-q/2, q/2] with
 // standard deviation q / sqrt(12) (common practice); that is taken as a floor.
 
@@ -39,12 +40,27 @@ function median(a: Float64Array): number {
   return s.length % 2 ? s[h] : 0.5 * (s[h - 1] + s[h]);
 }
 
-/** Robust standard deviation: 1.4826 * median absolute deviation from the median. */
-function robustSpread(a: Float64Array): number {
-  const med = median(a);
-  const dev = new Float64Array(a.length);
-  for (let i = 0; i < a.length; i++) dev[i] = Math.abs(a[i] - med);
-  return 1.482602218505602 * median(dev);
+/**
+ * Robust standard deviation of differences d: the plain standard deviation of those within
+ * 5 robust sigmas (1.4826 MAD) of the median, so glitches are dropped. The plain deviation of
+ * the kept values, not the MAD itself, is returned: the MAD of quantized data can only take
+ * grid values and would be biased by up to half a step. floor: the smallest cut-off (a step).
+ */
+function robustSpread(d: Float64Array, floor: number): number {
+  const med = median(d);
+  const dev = new Float64Array(d.length);
+  for (let i = 0; i < d.length; i++) dev[i] = Math.abs(d[i] - med);
+  const cut = 5 * Math.max(1.482602218505602 * median(dev), floor);
+  let n = 0, s = 0, s2 = 0;
+  for (let i = 0; i < d.length; i++) {
+    if (dev[i] <= cut) {
+      n++;
+      s += d[i];
+      s2 += d[i] * d[i];
+    }
+  }
+  const mean = s / n;
+  return Math.sqrt(Math.max(0, s2 / n - mean * mean) * (n / Math.max(1, n - 1)));
 }
 
 /**
@@ -88,24 +104,24 @@ export function estimateNoise(x: Float64Array, dt: number): NoiseEstimate {
     if (!Number.isFinite(x[i])) throw new RangeError(`estimateNoise: x[${i}] is not finite (${x[i]})`);
   }
   // Successive differences in place on a copy; spread[k] normalised by sqrt(C(2k, k)).
+  const quantStep = quantizationStep(x);
   const d = Float64Array.from(x);
   const spread = new Float64Array(MAX_ORDER + 1);
   let len = n;
   for (let k = 1; k <= MAX_ORDER; k++) {
     for (let i = 0; i < len - 1; i++) d[i] = d[i + 1] - d[i];
     len--;
-    spread[k] = robustSpread(d.subarray(0, len)) / Math.sqrt(binomial(2 * k, k));
+    spread[k] = robustSpread(d.subarray(0, len), quantStep) / Math.sqrt(binomial(2 * k, k));
   }
   let smallest = Infinity;
   for (let k = 1; k <= MAX_ORDER; k++) smallest = Math.min(smallest, spread[k]);
   let order = 1;
   while (spread[order] > PREFER_LOW * smallest) order++;
   const sigmaDifferences = spread[order];
-  const quantStep = quantizationStep(x);
   const floor = quantStep / Math.sqrt(12);
   const sigma = Math.max(sigmaDifferences, floor);
   const method = floor > sigmaDifferences
     ? `quantization floor step/sqrt(12), step ${quantStep.toPrecision(4)} (differences of order ${order} gave ${sigmaDifferences.toPrecision(3)})`
-    : `MAD of differences of order ${order}` + (quantStep > 0 ? ` (above the quantization floor ${floor.toPrecision(3)})` : '');
+    : `robust spread of differences of order ${order}` + (quantStep > 0 ? ` (above the quantization floor ${floor.toPrecision(3)})` : '');
   return { sigma, quantStep, method, sigmaDifferences, differenceOrder: order, density: sigma * sigma * 2 * dt };
 }

@@ -45,7 +45,7 @@ describe('analyseRun', () => {
     const run = makeRun(1000, 0.01, 1e-3);
     const a = analyseRun(run, 'linear', { savgol: { halfWindow: 12, order: 3 } });
     expect([a.savgol.halfWindow, a.savgol.order, a.unit]).toEqual([12, 3, 'm']);
-    const t = Float64Array.from(run.t); t[500] += 0.004;
+    const t = Float64Array.from(run.t); t[500] += 0.0004; // 4 % of the 0.01 s step
     expect(() => analyseRun({ ...run, t }, 'angle')).toThrow(/run "swing-a.csv run 1": sampling is not uniform at sample 500/);
     expect(() => analyseRun({ ...run, q: run.q.subarray(0, 999) }, 'angle')).toThrow(/t has 1000 samples but q has 999/);
     expect(() => analyseRun({ ...run, t: run.t.subarray(0, 10), q: run.q.subarray(0, 10) }, 'angle')).toThrow(/has 10 samples; at least 64/);
