@@ -171,11 +171,12 @@ export function solveCare(problem: CareProblem, options: CareOptions = {}): Care
   let eig = closedLoop(A, G, X);
   const maxRe = Math.max(...eig.re);
   if (!(maxRe < 0)) {
+    const r0 = residuals(A, G, Q, X);
     return {
       ...fail('no-stabilizing-solution', 'closed-loop-unstable',
         `the computed solution is not stabilizing: A - BK has an eigenvalue with real part ${maxRe.toPrecision(4)} >= 0; (A, B) is probably not stabilizable`, iterations),
       X: X.to2DArray(), K: RinvBt.mmul(X).to2DArray(), closedLoopEigenvalues: eig,
-      ...residuals(A, G, Q, X),
+      residual: r0.residual, relativeResidual: r0.relativeResidual,
     };
   }
 

@@ -72,6 +72,23 @@ describe('solveCare on the CAREX collection (references.md §3)', () => {
     expect(r.status).toBe('no-stabilizing-solution');
   });
 
+  it('an unobservable but strictly unstable mode still has a stabilizing solution (only axis modes matter)', () => {
+    // a = 1, b = 1, q = 0: 2x - x^2 = 0, the stabilizing root is x = 2 (closed loop -1); the
+    // existence condition is stabilizability plus no Hamiltonian eigenvalue on the imaginary axis
+    // (Lancaster & Rodman 1995, from memory).
+    const r = solveCare({ A: [[1, 0], [0, -1]], B: [[1], [0]], Q: [[0, 0], [0, 1]], R: [[1]] });
+    expect(r.status).toBe('ok');
+    expectClose(r.X![0][0], 2, 1e-12, 'x11');
+    expectClose(r.X![1][1], 0.5, 1e-12, 'x22 = q/(2|a|) for the uncontrolled stable mode');
+    expect(Math.max(...r.closedLoopEigenvalues!.re)).toBeLessThan(0);
+  });
+
+  it('names bad options', () => {
+    const p = { A: [[0, 1], [0, 0]], B: [[0], [1]], Q: [[1, 0], [0, 1]], R: [[1]] };
+    expect(() => solveCare(p, { tol: -1 })).toThrow(/options\.tol/);
+    expect(() => solveCare(p, { maxIterations: 1.5 })).toThrow(/options\.maxIterations/);
+  });
+
   for (const [n, m, seed] of [[4, 1, 11], [4, 2, 12], [6, 2, 13], [6, 3, 14], [8, 3, 15]] as const) {
     it(`random ${n}x${n} problem with m = ${m} (seed ${seed}): residual <= 1e-10, closed loop stable, X symmetric psd`, () => {
       // Random problems with full B rows are generically stabilizable and, with Q = C'C + I/10 > 0,
