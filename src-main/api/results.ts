@@ -9,8 +9,9 @@ export interface AppInfo {
 }
 
 export interface RecordingSummary {
-  id: number;
+  /** Unique within the project. */
   name: string;
+  sourceFile: string;
   coordinate: 'angle' | 'linear';
   runs: { name: string; samples: number; sampleRate: number; duration: number; min: number; max: number }[];
   warnings: string[];
@@ -21,9 +22,9 @@ export interface ProjectSummary {
   path: string | null;
   dirty: boolean;
   recordings: RecordingSummary[];
-  models: { id: number; name: string }[];
-  designs: { id: number; name: string }[];
-  trials: { id: number; name: string }[];
+  models: { name: string; kind: string }[];
+  designs: { name: string; kind: string }[];
+  trials: { name: string; kind: string }[];
 }
 
 export interface ImportSummary {

@@ -6,7 +6,7 @@ import * as v from './validate.ts';
 import type * as R from './results.ts';
 
 const path = v.string({ min: 1, max: 4096 });
-const id = v.number({ integer: true, min: 1 });
+const entryName = v.string({ min: 1, max: 200 });
 const columnMapping = v.object({
   time: v.string({ min: 1, max: 200 }),
   position: v.string({ min: 1, max: 200 }),
@@ -27,9 +27,9 @@ export const operations = {
     'Import one CSV recording given as text (drag-and-drop in browser mode).',
     v.object({ name: v.string({ min: 1, max: 255 }), text: v.string({ max: 64 * 1024 * 1024 }), mapping: columnMapping })),
   'recordings.demo': operation<{ rig: 'pendulum' | 'strip' }, R.ImportSummary>('Add the demo recordings of an invented rig.', v.object({ rig: v.literal('pendulum', 'strip') })),
-  'recordings.trace': operation<{ recording: number; run: number; maxPoints: number }, R.Trace>(
+  'recordings.trace': operation<{ recording: string; run: number; maxPoints: number }, R.Trace>(
     "One run's samples, decimated to at most maxPoints keeping each bucket's extremes.",
-    v.object({ recording: id, run: v.number({ integer: true, min: 0 }), maxPoints: v.number({ integer: true, min: 10, max: 200_000 }) })),
+    v.object({ recording: entryName, run: v.number({ integer: true, min: 0 }), maxPoints: v.number({ integer: true, min: 10, max: 200_000 }) })),
   'dialog.open': operation<{ kind: 'project' | 'recordings' }, R.DialogOpen>('Ask for files with the system dialog (desktop only).', v.object({ kind: v.literal('project', 'recordings') })),
   'dialog.save': operation<{ kind: 'project' | 'json' | 'csv' | 'html' | 'svg' | 'png'; suggestedName: string }, R.DialogSave>(
     'Ask where to save with the system dialog (desktop only).',
