@@ -1,12 +1,12 @@
 // The save protocol (write-to-temp-then-rename, the usual POSIX way to replace a file
 // atomically; rename(2) replaces the target in one step, and libuv's rename on Windows uses
-// MoveFileEx with MOVEFILE_REPLACE_EXISTING): a complete new database is written to a hidden
+// MoveFileEx with MOVEFILE_REPLACE_EXISTING, from memory): a complete new database is written to a hidden
 // temp file in the target's folder, checked (PRAGMA quick_check), fsynced, renamed over the
 // target, and the folder is fsynced where the platform allows. A failed save deletes its temp
 // file and leaves the old file as it was.
 import Database from 'better-sqlite3';
 import { randomBytes } from 'node:crypto';
-import { chmodSync, closeSync, fsyncSync, lstatSync, openSync, realpathSync, renameSync, statSync, unlinkSync } from 'node:fs';
+import { chmodSync, closeSync, fsyncSync, lstatSync, openSync, readdirSync, realpathSync, renameSync, statSync, unlinkSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { messageOf, ProjectFileError } from './errors.ts';
 import type { ProjectSnapshot } from './snapshot.ts';
@@ -31,6 +31,35 @@ export interface SaveReport {
 /** The hidden temp name used while saving `target`: `.NAME.ergostat.tmp-<pid>-<random>` in the same folder. */
 export function tempPathFor(target: string): string {
   return join(dirname(target), `.${basename(target)}.tmp-${process.pid}-${randomBytes(6).toString('hex')}`);
+}
+
+/**
+ * Temp files of saves of `target` that were killed before finishing: hidden
+ * `.NAME.ergostat.tmp-<pid>-<hex>` files in its folder whose process no longer runs (a save in
+ * progress in another live process is not listed). The app may offer to delete them.
+ */
+export function saveLeftovers(target: string): string[] {
+  const prefix = `.${basename(target)}.tmp-`;
+  const pattern = /^(\d+)-[0-9a-f]{12}(-journal)?$/;
+  let names: string[];
+  try {
+    names = readdirSync(dirname(target));
+  } catch {
+    return [];
+  }
+  return names
+    .filter((n) => n.startsWith(prefix))
+    .filter((n) => {
+      const m = pattern.exec(n.slice(prefix.length));
+      if (!m) return false;
+      try {
+        process.kill(Number(m[1]), 0); // signal 0: only asks whether the process exists
+        return false;
+      } catch (e) {
+        return (e as NodeJS.ErrnoException).code === 'ESRCH';
+      }
+    })
+    .map((n) => join(dirname(target), n));
 }
 
 function removeQuietly(path: string): void {

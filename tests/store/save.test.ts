@@ -2,7 +2,7 @@ import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { openProject, ProjectFileError } from '../../src-main/store/index.ts';
+import { openProject, ProjectFileError, saveLeftovers } from '../../src-main/store/index.ts';
 import { sampleProject, sameBytes, scratchDir } from './helpers.ts';
 
 const { dir, cleanup } = scratchDir('save');
@@ -67,8 +67,10 @@ describe('atomic save', () => {
 
     const child = startSaver(target, 'pause', 100_000, 'generation 2');
     const ready = await child.line('READY ');
-    await child.kill();
     const temp = ready.slice('READY '.length);
+    expect(saveLeftovers(target)).toEqual([]); // the saving process is alive: its temp file is not a leftover
+    await child.kill();
+    expect(saveLeftovers(target)).toEqual([temp]);
 
     // The killed save left its temp file; it is hidden and not named *.ergostat.
     expect(existsSync(temp)).toBe(true);
