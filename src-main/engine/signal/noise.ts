@@ -122,6 +122,6 @@ export function estimateNoise(x: Float64Array, dt: number): NoiseEstimate {
   const sigma = Math.max(sigmaDifferences, floor);
   const method = floor > sigmaDifferences
     ? `quantization floor step/sqrt(12), step ${quantStep.toPrecision(4)} (differences of order ${order} gave ${sigmaDifferences.toPrecision(3)})`
-    : `robust spread of differences of order ${order}` + (quantStep > 0 ? ` (above the quantization floor ${floor.toPrecision(3)})` : '');
+    : `robust spread of differences of order ${order}` + (quantStep > 0 ? `, above the quantization floor ${floor.toPrecision(3)}` : '');
   return { sigma, quantStep, method, sigmaDifferences, differenceOrder: order, density: sigma * sigma * 2 * dt };
 }
