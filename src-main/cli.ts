@@ -10,6 +10,7 @@ export interface Io {
 export type Verb = (argv: string[], io: Io) => Promise<number>;
 
 const verbs: Record<string, { summary: string; load: () => Promise<Verb> }> = {
+  check: { summary: 'import CSV recordings and report sampling, noise, Savitzky-Golay window and damping per run', load: async () => (await import('./cli/check.ts')).run },
 };
 
 function usage(): string {
