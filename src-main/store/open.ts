@@ -114,8 +114,10 @@ export function openProject(path: string, options: OpenOptions = {}): ProjectSto
     harden(db);
     const pragmaVersion = db.pragma('user_version', { simple: true });
     if (pragmaVersion !== version) throw new Error(`damaged: schema version ${String(pragmaVersion)} disagrees with the header (${version})`);
+    db.exec('BEGIN'); // one read transaction: all checks and reads see the same state of the file
     checkDatabase(db, version);
     if (version === SCHEMA_VERSION) snap = readSnapshot(db, limits);
+    db.exec('COMMIT');
   } catch (e) {
     fail(reasonOf(e), e);
   } finally {

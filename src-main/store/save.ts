@@ -89,13 +89,6 @@ export function saveSnapshot(path: string, snap: ProjectSnapshot, options: SaveO
   let db: Database.Database | undefined;
   try {
     closeSync(openSync(temp, 'wx')); // claim the name exclusively; SQLite treats an empty file as an empty database
-    if (oldMode !== undefined) {
-      try {
-        chmodSync(temp, oldMode);
-      } catch {
-        // keeping the old permissions is a courtesy, not a requirement
-      }
-    }
     db = new Database(temp, { fileMustExist: true });
     db.pragma('journal_mode = OFF'); // the temp file is thrown away on failure, so no journal beside it
     db.pragma('synchronous = OFF'); // one explicit fsync below instead
@@ -110,6 +103,13 @@ export function saveSnapshot(path: string, snap: ProjectSnapshot, options: SaveO
       fsyncSync(fd);
     } finally {
       closeSync(fd);
+    }
+    if (oldMode !== undefined) {
+      try {
+        chmodSync(temp, oldMode); // after writing, so a read-only old file does not block the write
+      } catch {
+        // keeping the old permissions is a courtesy, not a requirement
+      }
     }
     options.beforeRename?.(temp);
     renameSync(temp, target);

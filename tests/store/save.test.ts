@@ -1,5 +1,5 @@
 import { spawn } from 'node:child_process';
-import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { chmodSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { openProject, ProjectFileError, saveLeftovers } from '../../src-main/store/index.ts';
@@ -146,5 +146,18 @@ describe('atomic save', () => {
     expect(() => sampleProject(10).save(target)).toThrow(ProjectFileError);
     expect(() => sampleProject(10).save(target)).toThrow(/rig\.ergostat: save failed, the previous file is unchanged: ENOENT/);
     expect(existsSync(join(dir, 'no-such-folder'))).toBe(false);
+  });
+});
+
+describe('save details', () => {
+  it('keeps the permissions of the file it replaces, even a read-only one', () => {
+    const folder = join(dir, 'mode');
+    mkdirSync(folder);
+    const target = join(folder, 'rig.ergostat');
+    sampleProject(10, 'first').save(target);
+    chmodSync(target, 0o440);
+    sampleProject(10, 'second').save(target);
+    expect(statSync(target).mode & 0o777).toBe(0o440);
+    expect(markerOf(target)).toBe('second');
   });
 });
