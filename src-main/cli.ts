@@ -10,6 +10,7 @@ export interface Io {
 export type Verb = (argv: string[], io: Io) => Promise<number>;
 
 const verbs: Record<string, { summary: string; load: () => Promise<Verb> }> = {
+  demo: { summary: 'write the demo rigs\' recordings and run the pipeline on them', load: async () => (await import('./cli/demo.ts')).run },
   check: { summary: 'import CSV recordings and report sampling, noise, Savitzky-Golay window and damping per run', load: async () => (await import('./cli/check.ts')).run },
 };
 

@@ -1,0 +1,41 @@
+// `ergostat demo [--out DIR]`: writes the recordings of the two invented demo rigs and runs the
+// pipeline on them with the same verbs a user would type, echoing each command before its output.
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join, relative, resolve } from 'node:path';
+import type { Io, Verb } from '../cli.ts';
+import { optionalValue, parseArgs } from './args.ts';
+import { demoRecording, type DemoRig } from '../demo/rigs.ts';
+
+export const run: Verb = async (argv, io) => {
+  const args = parseArgs(argv, { out: { kind: 'value' }, 'data-only': { kind: 'flag' } });
+  if (args.positional.length > 0) throw new (await import('./args.ts')).UsageError(`unexpected argument "${args.positional[0]}"`);
+  const out = resolve(optionalValue(args, 'out') ?? 'demo-output');
+  mkdirSync(out, { recursive: true });
+  const { main } = await import('../cli.ts');
+  const show = (p: string) => relative(process.cwd(), p) || '.';
+
+  for (const rig of ['pendulum', 'strip'] as DemoRig[]) {
+    const d = demoRecording(rig);
+    const free = join(out, d.free.name);
+    const forced = join(out, d.forced.name);
+    writeFileSync(free, d.free.text);
+    writeFileSync(forced, d.forced.text);
+    io.out(`# ${d.title}: ${d.description}`);
+    io.out(`wrote ${show(free)} and ${show(forced)}`);
+    if (args.flags.has('data-only')) continue;
+    const m = d.mapping;
+    const common = ['--time', m.time, '--position', m.position, ...(m.angle ? ['--angle'] : [])];
+    const steps: string[][] = [['check', free, ...common, '--run', m.run!]];
+    for (const step of steps) {
+      io.out('');
+      io.out(`$ ergostat ${step.map((s) => (s.includes(out) ? show(s) : s)).join(' ')}`);
+      const code = await main(step, io as Io);
+      if (code !== 0) {
+        io.err(`ergostat demo: step "${step[0]}" ended with exit code ${code}`);
+        return code;
+      }
+    }
+    io.out('');
+  }
+  return 0;
+};
