@@ -39,8 +39,9 @@ function refusal(path: string, options?: Parameters<typeof openProject>[1]): Pro
 }
 
 describe('openProject refuses what is not an Ergostat project', () => {
-  it('refuses a missing file', () => {
+  it('refuses a missing file and a folder', () => {
     expect(refusal(join(dir, 'nothing-here.ergostat')).reason).toBe('file not found');
+    expect(refusal(dir).reason).toBe('not a file');
   });
 
   it('refuses an empty file, a CSV and random bytes', () => {

@@ -153,6 +153,16 @@ describe('ProjectStore entries', () => {
     expect(p.recordings.size + p.models.size + p.designs.size + p.trials.size).toBe(0);
   });
 
+  it('enforces the count and size limits it was created with', () => {
+    const p = ProjectStore.create({ limits: { maxDocuments: 2, maxBlobBytes: 80 } });
+    p.notes.put({ name: 'a', text: '' });
+    p.notes.put({ name: 'b', text: '' });
+    p.notes.put({ name: 'b', text: 'replacing is not adding' });
+    expect(() => p.notes.put({ name: 'c', text: '' })).toThrow('note: the project already holds 2, the limit');
+    expect(() => p.trials.put({ name: 't', kind: 'k', settings: {}, metrics: {}, traces: [{ name: 'x', unit: '', data: new Float64Array(11) }] }))
+      .toThrow('trial.traces[0].data: 88 bytes of samples, over the limit of 80');
+  });
+
   it('refuses to save under a name without the .ergostat extension', () => {
     const p = ProjectStore.create();
     const path = join(dir, 'project.sqlite');
