@@ -161,6 +161,7 @@ export function solveDopri5(rhs: Rhs, tSpan: readonly [number, number], y0: Arra
   const outT = new GrowableF64(), outY = new GrowableF64();
   const segT = new GrowableF64(), segH = new GrowableF64(), segR = new GrowableF64();
   const hits: EventHit[] = [];
+  const found: EventHit[] = []; // this step's events, reused
   let nfev = 0, nSteps = 0, nRejected = 0, hLast = 0;
   let evalIdx = 0;
   let t = t0;
@@ -179,172 +180,181 @@ export function solveDopri5(rhs: Rhs, tSpan: readonly [number, number], y0: Arra
       }
     }
   };
-  const finish = (): OdeResult => {
-    if (!tEval && !saveSteps && (outT.length === 0 || outT.view()[outT.length - 1] !== t)) {
-      outT.push(t);
-      outY.pushAll(y);
-    }
-    const result: OdeResult = {
-      status, message: message || statusMessage(status, t), t: outT.toArray(), y: outY.toArray(), n,
-      tFinal: t, yFinal: Float64Array.from(y), nfev, nSteps, nRejected, hLast, events: hits, warnings,
-    };
-    if (wantDense) result.sol = makeSol(t0, t, dir, n, segT.toArray(), segH.toArray(), segR.toArray(), yStart);
-    return result;
-  };
-
   // ---- start ----
   if (tEval) emitEvalUpTo(t0, y, t0, 1);
   else { outT.push(t0); outY.pushAll(y); }
   rhs(t0, y, k1);
   nfev++;
-  if (!allFinite(k1)) {
-    status = 'non-finite';
-    message = `rhs returned a non-finite derivative at the initial point t = ${t0}`;
-    return finish();
-  }
-  for (let k = 0; k < nEv; k++) gOld[k] = ev.g[k](t0, y);
-  let h: number;
-  if (h0 !== undefined) h = dir * Math.min(h0, hMax);
-  else {
-    h = initialStep(rhs, t0, y, k1, dir, 4, rtol, atol, hMax, new Float64Array(2 * n));
-    nfev++;
-  }
-  let lastRejected = false;
-  let nonFiniteRun = 0;
+  // (A labeled block rather than a closure for the ending: V8 boxes doubles such as t that a closure
+  // captures, which would cost an allocation per step.)
+  run: {
+    if (!allFinite(k1)) {
+      status = 'non-finite';
+      message = `rhs returned a non-finite derivative at the initial point t = ${t0}`;
+      break run;
+    }
+    for (let k = 0; k < nEv; k++) gOld[k] = ev.g[k](t0, y);
+    let h: number;
+    if (h0 !== undefined) h = dir * Math.min(h0, hMax);
+    else {
+      h = initialStep(rhs, t0, y, k1, dir, 4, rtol, atol, hMax, new Float64Array(2 * n));
+      nfev++;
+    }
+    let lastRejected = false;
+    let nonFiniteRun = 0;
 
-  // ---- main loop ----
-  for (;;) {
-    if (nSteps + nRejected >= maxSteps) {
-      status = 'max-steps';
-      message = `stopped after ${maxSteps} attempted steps at t = ${t} (options.maxSteps)`;
-      break;
-    }
-    let last = false;
-    if ((t + 1.01 * h - t1) * dir >= 0) { h = t1 - t; last = true; }
-    if (Math.abs(h) <= 10 * Number.EPSILON * Math.abs(t) || t + h === t) {
-      if (nonFiniteRun > 0) {
-        status = 'non-finite';
-        message = `rhs returned non-finite values just after t = ${t}, even for the smallest step`;
-      } else {
-        status = 'step-too-small';
-        message = `step size ${h} too small at t = ${t}: the solution may be singular or the problem stiff`;
-      }
-      break;
-    }
-    // Stages (HNW Table 5.2); k1 holds f(t, y) from the previous step's last stage (FSAL).
-    for (let i = 0; i < n; i++) yTmp[i] = y[i] + h * A21 * k1[i];
-    rhs(t + C2 * h, yTmp, k2);
-    for (let i = 0; i < n; i++) yTmp[i] = y[i] + h * (A31 * k1[i] + A32 * k2[i]);
-    rhs(t + C3 * h, yTmp, k3);
-    for (let i = 0; i < n; i++) yTmp[i] = y[i] + h * (A41 * k1[i] + A42 * k2[i] + A43 * k3[i]);
-    rhs(t + C4 * h, yTmp, k4);
-    for (let i = 0; i < n; i++) yTmp[i] = y[i] + h * (A51 * k1[i] + A52 * k2[i] + A53 * k3[i] + A54 * k4[i]);
-    rhs(t + C5 * h, yTmp, k5);
-    for (let i = 0; i < n; i++) yTmp[i] = y[i] + h * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
-    const tNew = last ? t1 : t + h;
-    rhs(t + h, yTmp, k6);
-    for (let i = 0; i < n; i++) yNew[i] = y[i] + h * (B1 * k1[i] + B3 * k3[i] + B4 * k4[i] + B5 * k5[i] + B6 * k6[i]);
-    rhs(tNew, yNew, k7);
-    nfev += 6;
-    // Local error estimate h Σ e_i k_i in the RMS norm with weights atol + rtol max(|y|, |yNew|) (HNW (4.10)-(4.11)).
-    let err = 0;
-    for (let i = 0; i < n; i++) {
-      const e = h * (E1 * k1[i] + E3 * k3[i] + E4 * k4[i] + E5 * k5[i] + E6 * k6[i] + E7 * k7[i]);
-      const sc = atol[i] + rtol[i] * Math.max(Math.abs(y[i]), Math.abs(yNew[i]));
-      err += (e / sc) ** 2;
-    }
-    err = Math.sqrt(err / n);
-    if (!Number.isFinite(err)) {
-      // A stage overflowed or rhs returned NaN/Inf: retry with a much smaller step, a few times.
-      nRejected++;
-      lastRejected = true;
-      if (++nonFiniteRun > MAX_NONFINITE_RETRIES) {
-        status = 'non-finite';
-        message = `rhs returned non-finite values near t = ${t} even with step ${h}`;
+    // ---- main loop ----
+    for (;;) {
+      if (nSteps + nRejected >= maxSteps) {
+        status = 'max-steps';
+        message = `stopped after ${maxSteps} attempted steps at t = ${t} (options.maxSteps)`;
         break;
       }
-      h *= minFactor;
-      continue;
-    }
-    nonFiniteRun = 0;
-    if (err > 1) {
-      nRejected++;
-      h *= Math.max(minFactor, safety * err ** -ERR_EXP);
-      lastRejected = true;
-      continue;
-    }
-
-    // ---- accepted step t -> tNew ----
-    nSteps++;
-    hLast = h;
-    const tOld = t;
-    if (needInterp) {
-      for (let i = 0; i < n; i++) {
-        const dy = yNew[i] - y[i];
-        const bspl = h * k1[i] - dy;
-        rc[i] = y[i];
-        rc[n + i] = dy;
-        rc[2 * n + i] = bspl;
-        rc[3 * n + i] = dy - h * k7[i] - bspl;
-        rc[4 * n + i] = h * (D1 * k1[i] + D3 * k3[i] + D4 * k4[i] + D5 * k5[i] + D6 * k6[i] + D7 * k7[i]);
-      }
-      if (wantDense) { segT.push(tOld); segH.push(h); segR.pushAll(rc); }
-    }
-    // Events on this step, located on the interpolant and taken in time order.
-    let stopT = NaN;
-    let stopY: Float64Array | undefined;
-    if (nEv > 0) {
-      const found: EventHit[] = [];
-      for (let k = 0; k < nEv; k++) {
-        gNew[k] = ev.g[k](tNew, yNew);
-        if (!crosses(gOld[k], gNew[k], ev.direction[k])) continue;
-        const gk = ev.g[k];
-        const phi = (s: number): number => {
-          dopri5Interp(rc, 0, n, (s - tOld) / h, yInterp);
-          return gk(s, yInterp);
-        };
-        const tr = brentRoot(phi, tOld, tNew, gOld[k], gNew[k], eventTol);
-        let yr: Float64Array;
-        if (tr === tNew) yr = Float64Array.from(yNew);
-        else { yr = new Float64Array(n); dopri5Interp(rc, 0, n, (tr - tOld) / h, yr); }
-        found.push({ index: k, t: tr, y: yr });
-      }
-      found.sort((a, b) => (a.t - b.t) * dir);
-      for (const hit of found) {
-        if (stopY && hit.t !== stopT) break;
-        hits.push(hit);
-        const k = hit.index;
-        evCount[k]++;
-        if (ev.stopAfter[k] > 0 && evCount[k] >= ev.stopAfter[k] && !stopY) {
-          stopT = hit.t;
-          stopY = hit.y;
-          status = 'event';
-          message = `terminal event ${k} (occurrence ${evCount[k]}) at t = ${hit.t}`;
+      let last = false;
+      if ((t + 1.01 * h - t1) * dir >= 0) { h = t1 - t; last = true; }
+      if (Math.abs(h) <= 10 * Number.EPSILON * Math.abs(t) || t + h === t) {
+        if (nonFiniteRun > 0) {
+          status = 'non-finite';
+          message = `rhs returned non-finite values just after t = ${t}, even for the smallest step`;
+        } else {
+          status = 'step-too-small';
+          message = `step size ${h} too small at t = ${t}: the solution may be singular or the problem stiff`;
         }
+        break;
       }
-      gOld.set(gNew);
+      // Stages (HNW Table 5.2); k1 holds f(t, y) from the previous step's last stage (FSAL).
+      for (let i = 0; i < n; i++) yTmp[i] = y[i] + h * A21 * k1[i];
+      rhs(t + C2 * h, yTmp, k2);
+      for (let i = 0; i < n; i++) yTmp[i] = y[i] + h * (A31 * k1[i] + A32 * k2[i]);
+      rhs(t + C3 * h, yTmp, k3);
+      for (let i = 0; i < n; i++) yTmp[i] = y[i] + h * (A41 * k1[i] + A42 * k2[i] + A43 * k3[i]);
+      rhs(t + C4 * h, yTmp, k4);
+      for (let i = 0; i < n; i++) yTmp[i] = y[i] + h * (A51 * k1[i] + A52 * k2[i] + A53 * k3[i] + A54 * k4[i]);
+      rhs(t + C5 * h, yTmp, k5);
+      for (let i = 0; i < n; i++) yTmp[i] = y[i] + h * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
+      const tNew = last ? t1 : t + h;
+      rhs(t + h, yTmp, k6);
+      for (let i = 0; i < n; i++) yNew[i] = y[i] + h * (B1 * k1[i] + B3 * k3[i] + B4 * k4[i] + B5 * k5[i] + B6 * k6[i]);
+      rhs(tNew, yNew, k7);
+      nfev += 6;
+      // Local error estimate h Σ e_i k_i in the RMS norm with weights atol + rtol max(|y|, |yNew|) (HNW (4.10)-(4.11)).
+      let err = 0;
+      for (let i = 0; i < n; i++) {
+        const e = h * (E1 * k1[i] + E3 * k3[i] + E4 * k4[i] + E5 * k5[i] + E6 * k6[i] + E7 * k7[i]);
+        const sc = atol[i] + rtol[i] * Math.max(Math.abs(y[i]), Math.abs(yNew[i]));
+        err += (e / sc) ** 2;
+      }
+      err = Math.sqrt(err / n);
+      if (!Number.isFinite(err)) {
+        // A stage overflowed or rhs returned NaN/Inf: retry with a much smaller step, a few times.
+        nRejected++;
+        lastRejected = true;
+        if (++nonFiniteRun > MAX_NONFINITE_RETRIES) {
+          status = 'non-finite';
+          message = `rhs returned non-finite values near t = ${t} even with step ${h}`;
+          break;
+        }
+        h *= minFactor;
+        continue;
+      }
+      nonFiniteRun = 0;
+      if (err > 1) {
+        nRejected++;
+        h *= Math.max(minFactor, safety * err ** -ERR_EXP);
+        lastRejected = true;
+        continue;
+      }
+
+      // ---- accepted step t -> tNew ----
+      nSteps++;
+      hLast = h;
+      const tOld = t;
+      if (needInterp) {
+        for (let i = 0; i < n; i++) {
+          const dy = yNew[i] - y[i];
+          const bspl = h * k1[i] - dy;
+          rc[i] = y[i];
+          rc[n + i] = dy;
+          rc[2 * n + i] = bspl;
+          rc[3 * n + i] = dy - h * k7[i] - bspl;
+          rc[4 * n + i] = h * (D1 * k1[i] + D3 * k3[i] + D4 * k4[i] + D5 * k5[i] + D6 * k6[i] + D7 * k7[i]);
+        }
+        if (wantDense) { segT.push(tOld); segH.push(h); segR.pushAll(rc); }
+      }
+      // Events on this step, located on the interpolant and taken in time order.
+      let stopT = NaN;
+      let stopY: Float64Array | undefined;
+      if (nEv > 0) {
+        found.length = 0;
+        for (let k = 0; k < nEv; k++) {
+          gNew[k] = ev.g[k](tNew, yNew);
+          if (!crosses(gOld[k], gNew[k], ev.direction[k])) continue;
+          const tr = locateOnStep(ev.g[k], rc, n, tOld, tNew, h, gOld[k], gNew[k], eventTol, yInterp);
+          let yr: Float64Array;
+          if (tr === tNew) yr = Float64Array.from(yNew);
+          else { yr = new Float64Array(n); dopri5Interp(rc, 0, n, (tr - tOld) / h, yr); }
+          found.push({ index: k, t: tr, y: yr });
+        }
+        if (found.length > 1) found.sort((a, b) => (a.t - b.t) * dir);
+        for (const hit of found) {
+          if (stopY && hit.t !== stopT) break;
+          hits.push(hit);
+          const k = hit.index;
+          evCount[k]++;
+          if (ev.stopAfter[k] > 0 && evCount[k] >= ev.stopAfter[k] && !stopY) {
+            stopT = hit.t;
+            stopY = hit.y;
+            status = 'event';
+            message = `terminal event ${k} (occurrence ${evCount[k]}) at t = ${hit.t}`;
+          }
+        }
+        gOld.set(gNew);
+      }
+      const tEnd = stopY ? stopT : tNew;
+      const yEnd = stopY ?? yNew;
+      emitEvalUpTo(tEnd, yEnd, tOld, h);
+      if (!tEval && saveSteps) { outT.push(tEnd); outY.pushAll(yEnd); }
+      // FSAL: the last stage is f(tNew, yNew), the first stage of the next step.
+      const ySwap = y; y = yNew; yNew = ySwap;
+      const kSwap = k1; k1 = k7; k7 = kSwap;
+      t = tNew;
+      if (stopY) { t = stopT; y.set(stopY); }
+      if (onStep && onStep(t, y, t - tOld) === false) {
+        if (status !== 'event') { status = 'stopped'; message = `stopped by options.onStep at t = ${t}`; }
+        break;
+      }
+      if (stopY || last) break;
+      let fac = err === 0 ? maxFactor : Math.min(maxFactor, Math.max(minFactor, safety * err ** -ERR_EXP));
+      if (lastRejected) fac = Math.min(fac, 1);
+      h *= fac;
+      if (Math.abs(h) > hMax) h = dir * hMax;
+      lastRejected = false;
     }
-    const tEnd = stopY ? stopT : tNew;
-    const yEnd = stopY ?? yNew;
-    emitEvalUpTo(tEnd, yEnd, tOld, h);
-    if (!tEval && saveSteps) { outT.push(tEnd); outY.pushAll(yEnd); }
-    // FSAL: the last stage is f(tNew, yNew), the first stage of the next step.
-    [y, yNew] = [yNew, y];
-    [k1, k7] = [k7, k1];
-    t = tNew;
-    if (stopY) { t = stopT; y.set(stopY); }
-    if (onStep && onStep(t, y, t - tOld) === false) {
-      if (status !== 'event') { status = 'stopped'; message = `stopped by options.onStep at t = ${t}`; }
-      break;
-    }
-    if (stopY || last) break;
-    let fac = err === 0 ? maxFactor : Math.min(maxFactor, Math.max(minFactor, safety * err ** -ERR_EXP));
-    if (lastRejected) fac = Math.min(fac, 1);
-    h *= fac;
-    if (Math.abs(h) > hMax) h = dir * hMax;
-    lastRejected = false;
+  } // run
+
+  // ---- result ----
+  if (!tEval && !saveSteps && (outT.length === 0 || outT.view()[outT.length - 1] !== t)) {
+    outT.push(t);
+    outY.pushAll(y);
   }
-  return finish();
+  const result: OdeResult = {
+    status, message: message || statusMessage(status, t), t: outT.toArray(), y: outY.toArray(), n,
+    tFinal: t, yFinal: Float64Array.from(y), nfev, nSteps, nRejected, hLast, events: hits, warnings,
+  };
+  if (wantDense) result.sol = makeSol(t0, t, dir, n, segT.toArray(), segH.toArray(), segR.toArray(), yStart);
+  return result;
+}
+
+/** Root of g(s, u(s)) on the step [tOld, tNew] (u: the step's interpolant in rc), bracketed by gOld, gNew. */
+function locateOnStep(
+  g: (t: number, y: Float64Array) => number, rc: Float64Array, n: number, tOld: number, tNew: number, h: number,
+  gOld: number, gNew: number, tol: number, scratch: Float64Array,
+): number {
+  const phi = (s: number): number => {
+    dopri5Interp(rc, 0, n, (s - tOld) / h, scratch);
+    return g(s, scratch);
+  };
+  return brentRoot(phi, tOld, tNew, gOld, gNew, tol);
 }
 
 function allFinite(v: Float64Array): boolean {

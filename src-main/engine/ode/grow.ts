@@ -25,7 +25,9 @@ export class GrowableF64 {
   /** Appends v[0..count). */
   pushAll(v: Float64Array, count = v.length): void {
     this.reserve(count);
-    this.buf.set(count === v.length ? v : v.subarray(0, count), this.length);
+    const buf = this.buf, at = this.length;
+    if (count <= 16) for (let i = 0; i < count; i++) buf[at + i] = v[i]; // small rows: a loop beats TypedArray.set
+    else buf.set(count === v.length ? v : v.subarray(0, count), at);
     this.length += count;
   }
 
