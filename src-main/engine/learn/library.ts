@@ -23,6 +23,11 @@ export interface LibraryOptions {
   degree: number;
   /** Highest harmonic k for angles; default d. */
   harmonics?: number;
+  /**
+   * Only even powers of v (H(q, v) = H(q, -v)): the energy of a time-reversible rig without
+   * gyroscopic or magnetic forces is even in v (Goldstein, "Classical Mechanics", §1.5, from memory).
+   */
+  evenV?: boolean;
   userTerms?: UserTerm[];
 }
 
@@ -31,17 +36,18 @@ export function buildLibrary(opts: LibraryOptions): Term[] {
   const d = opts.degree;
   if (!Number.isInteger(d) || d < 1 || d > 12) throw new RangeError(`buildLibrary: degree must be an integer in 1..12, got ${d}`);
   const terms: Term[] = [];
+  const keep = (b: number) => !opts.evenV || b % 2 === 0;
   if (opts.coordinate === 'linear') {
-    for (let deg = 1; deg <= d; deg++) for (let b = 0; b <= deg; b++) terms.push({ kind: 'mono', a: deg - b, b });
+    for (let deg = 1; deg <= d; deg++) for (let b = 0; b <= deg; b++) if (keep(b)) terms.push({ kind: 'mono', a: deg - b, b });
   } else {
     const K = opts.harmonics ?? d;
     if (!Number.isInteger(K) || K < 1) throw new RangeError(`buildLibrary: harmonics must be a positive integer, got ${K}`);
     for (let deg = 1; deg <= d; deg++) {
       for (let k = 1; k <= Math.min(K, deg); k++) {
         const b = deg - k;
-        terms.push({ kind: 'trig', fn: 'cos', k, b }, { kind: 'trig', fn: 'sin', k, b });
+        if (keep(b)) terms.push({ kind: 'trig', fn: 'cos', k, b }, { kind: 'trig', fn: 'sin', k, b });
       }
-      terms.push({ kind: 'mono', a: 0, b: deg });
+      if (keep(deg)) terms.push({ kind: 'mono', a: 0, b: deg });
     }
   }
   for (const u of opts.userTerms ?? []) terms.push(u);
@@ -62,6 +68,8 @@ function extents(terms: Term[]): { maxA: number; maxB: number; maxK: number } {
 export interface TermEvaluator {
   p: number;
   evaluate(q: Float64Array, v: Float64Array, from: number, n: number, out: Float64Array, stride: number): void;
+  /** Time derivatives d/dt theta_j = dtheta_j/dq * v + dtheta_j/dv * a (chain rule), same layout. */
+  rates(q: Float64Array, v: Float64Array, a: Float64Array, from: number, n: number, out: Float64Array, stride: number): void;
 }
 
 export function termEvaluator(terms: Term[], maxRows: number): TermEvaluator {
@@ -70,23 +78,26 @@ export function termEvaluator(terms: Term[], maxRows: number): TermEvaluator {
   const vp = Array.from({ length: maxB + 1 }, () => new Float64Array(maxRows));
   const cs = Array.from({ length: maxK + 1 }, () => new Float64Array(maxRows));
   const sn = Array.from({ length: maxK + 1 }, () => new Float64Array(maxRows));
+  const fill = (q: Float64Array, v: Float64Array, from: number, n: number) => {
+    if (n > maxRows) throw new RangeError(`termEvaluator: n=${n} exceeds maxRows=${maxRows}`);
+    qp[0].fill(1, 0, n); vp[0].fill(1, 0, n);
+    for (let a = 1; a <= maxA; a++) { const prev = qp[a - 1], cur = qp[a]; for (let i = 0; i < n; i++) cur[i] = prev[i] * q[from + i]; }
+    for (let b = 1; b <= maxB; b++) { const prev = vp[b - 1], cur = vp[b]; for (let i = 0; i < n; i++) cur[i] = prev[i] * v[from + i]; }
+    if (maxK >= 1) {
+      const c1 = cs[1], s1 = sn[1];
+      for (let i = 0; i < n; i++) { c1[i] = Math.cos(q[from + i]); s1[i] = Math.sin(q[from + i]); }
+      // Angle-addition recurrences: cos(kq) = 2cos q cos((k-1)q) - cos((k-2)q), same for sin (A&S 4.3.17 ff.).
+      cs[0].fill(1, 0, n); sn[0].fill(0, 0, n);
+      for (let k = 2; k <= maxK; k++) {
+        const c = cs[k], s = sn[k], cp = cs[k - 1], cpp = cs[k - 2], sp = sn[k - 1], spp = sn[k - 2];
+        for (let i = 0; i < n; i++) { c[i] = 2 * c1[i] * cp[i] - cpp[i]; s[i] = 2 * c1[i] * sp[i] - spp[i]; }
+      }
+    }
+  };
   return {
     p: terms.length,
     evaluate(q, v, from, n, out, stride) {
-      if (n > maxRows) throw new RangeError(`termEvaluator: n=${n} exceeds maxRows=${maxRows}`);
-      qp[0].fill(1, 0, n); vp[0].fill(1, 0, n);
-      for (let a = 1; a <= maxA; a++) { const prev = qp[a - 1], cur = qp[a]; for (let i = 0; i < n; i++) cur[i] = prev[i] * q[from + i]; }
-      for (let b = 1; b <= maxB; b++) { const prev = vp[b - 1], cur = vp[b]; for (let i = 0; i < n; i++) cur[i] = prev[i] * v[from + i]; }
-      if (maxK >= 1) {
-        const c1 = cs[1], s1 = sn[1];
-        for (let i = 0; i < n; i++) { c1[i] = Math.cos(q[from + i]); s1[i] = Math.sin(q[from + i]); }
-        // Angle-addition recurrences: cos(kq) = 2cos q cos((k-1)q) - cos((k-2)q), same for sin (A&S 4.3.17 ff.).
-        cs[0].fill(1, 0, n); sn[0].fill(0, 0, n);
-        for (let k = 2; k <= maxK; k++) {
-          const c = cs[k], s = sn[k], cp = cs[k - 1], cpp = cs[k - 2], sp = sn[k - 1], spp = sn[k - 2];
-          for (let i = 0; i < n; i++) { c[i] = 2 * c1[i] * cp[i] - cpp[i]; s[i] = 2 * c1[i] * sp[i] - spp[i]; }
-        }
-      }
+      fill(q, v, from, n);
       for (let j = 0; j < terms.length; j++) {
         const t = terms[j];
         const o = j * stride;
@@ -97,6 +108,28 @@ export function termEvaluator(terms: Term[], maxRows: number): TermEvaluator {
         const left = t.kind === 'mono' ? qp[t.a] : (t.fn === 'cos' ? cs[t.k] : sn[t.k]);
         const right = vp[t.b];
         for (let i = 0; i < n; i++) out[o + i] = left[i] * right[i];
+      }
+    },
+    rates(q, v, acc, from, n, out, stride) {
+      fill(q, v, from, n);
+      for (let j = 0; j < terms.length; j++) {
+        const t = terms[j];
+        const o = j * stride;
+        if (t.kind === 'user') {
+          for (let i = 0; i < n; i++) out[o + i] = t.dq(q[from + i], v[from + i]) * v[from + i] + t.dv(q[from + i], v[from + i]) * acc[from + i];
+          continue;
+        }
+        const b = t.b;
+        if (t.kind === 'mono') {
+          const A = t.a, qa = qp[A], qa1 = A > 0 ? qp[A - 1] : qa, vb = vp[b], vb1 = b > 0 ? vp[b - 1] : vb;
+          for (let i = 0; i < n; i++) out[o + i] = (A > 0 ? A * qa1[i] * vb[i] * v[from + i] : 0) + (b > 0 ? b * qa[i] * vb1[i] * acc[from + i] : 0);
+        } else {
+          const f = t.fn === 'cos' ? cs[t.k] : sn[t.k];
+          const df = t.fn === 'cos' ? sn[t.k] : cs[t.k];
+          const sg = t.fn === 'cos' ? -t.k : t.k;
+          const vb = vp[b], vb1 = b > 0 ? vp[b - 1] : vb;
+          for (let i = 0; i < n; i++) out[o + i] = sg * df[i] * vb[i] * v[from + i] + (b > 0 ? b * f[i] * vb1[i] * acc[from + i] : 0);
+        }
       }
     },
   };

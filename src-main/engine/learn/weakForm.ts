@@ -90,12 +90,17 @@ export function solveWeak(g: GramSet, dt: number, lambda: number, shift: Float64
   return { mu, xi, gap, ridge: eig.ridge, eig };
 }
 
-/** Relative non-conservation xi'Axi / xi'Cxi of given coefficients (all P terms) on a Gram set, e.g. a held-out run. */
-export function nonConservation(g: GramSet, dt: number, lambda: number, shift: Float64Array | null, xi: Float64Array): number {
+/**
+ * Relative non-conservation xi'Axi / xi'Cxi of given coefficients (all P terms) on a Gram set,
+ * e.g. a held-out run; C from `normalizeBy` when given (a held-out run spans a narrow band of
+ * energies, so its own variance would exaggerate mu).
+ */
+export function nonConservation(g: GramSet, dt: number, lambda: number, shift: Float64Array | null, xi: Float64Array, normalizeBy?: GramSet): number {
   const idx: number[] = [];
   for (let i = 0; i < g.p; i++) if (xi[i] !== 0) idx.push(i);
   if (idx.length === 0) return NaN;
-  const { A, C, p } = weakMatrices(g, dt, lambda, shift, idx);
+  const { A, p } = weakMatrices(g, dt, lambda, shift, idx);
+  const { C } = weakMatrices(normalizeBy ?? g, dt, lambda, shift, idx);
   let num = 0, den = 0;
   for (let a = 0; a < p; a++) for (let b = 0; b < p; b++) {
     const w = xi[idx[a]] * xi[idx[b]];
