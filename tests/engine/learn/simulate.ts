@@ -30,6 +30,8 @@ export interface SimSpec {
   wrap?: boolean;
   seed?: number;
   input?: (t: number, run: number) => number;
+  /** Input gain g in v' = f + g u (1/mass); default 1. */
+  gain?: number;
 }
 
 export interface SimResult { recording: Recording; truth: { q: Float64Array; v: Float64Array }[]; range: number }
@@ -38,7 +40,7 @@ export function simulate(s: SimSpec): SimResult {
   const steps = Math.round(s.seconds / s.dt);
   const sub = 4;
   const truth = s.inits.map(([q0, v0], k) => {
-    const r = rk4Fixed((t, y, d) => { d[0] = y[1]; d[1] = s.accel(y[0], y[1], t) + (s.input ? s.input(t, k) : 0); }, 0, [q0, v0], s.dt / sub, steps * sub);
+    const r = rk4Fixed((t, y, d) => { d[0] = y[1]; d[1] = s.accel(y[0], y[1], t) + (s.input ? (s.gain ?? 1) * s.input(t, k) : 0); }, 0, [q0, v0], s.dt / sub, steps * sub);
     const q = new Float64Array(steps + 1), v = new Float64Array(steps + 1);
     for (let i = 0; i <= steps; i++) { q[i] = r.y[2 * i * sub]; v[i] = r.y[2 * i * sub + 1]; }
     return { q, v };
