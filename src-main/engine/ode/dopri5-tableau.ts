@@ -1,9 +1,10 @@
 // Dormand–Prince 5(4) Butcher tableau and its continuous extension.
 // Coefficients: J. R. Dormand & P. J. Prince, "A family of embedded Runge–Kutta formulae",
 // J. Comput. Appl. Math. 6 (1980) 19–26; as tabulated in Hairer, Nørsett & Wanner,
-// "Solving Ordinary Differential Equations I" (2nd ed.), §II.5, Table 5.2 (DOPRI5).
-// Dense output (order 4): HNW §II.6, the continuous extension of DOPRI5 (Shampine's b_i(θ)),
-// written in the compact form with the five coefficient vectors r1..r5 below.
+// "Solving Ordinary Differential Equations I" (2nd ed.), §II.5 (Table 5.2; table number from memory).
+// Dense output (order 4): HNW §II.6, the continuous extension of DOPRI5 (due to Shampine, 1986, as
+// used in Hairer's DOPRI5 code; attribution from memory), written in the compact form with the five
+// coefficient vectors r1..r5 below. The tests check the order conditions and the interpolation order.
 
 /** Nodes c2..c6 (c1 = 0, c7 = 1). */
 export const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
