@@ -3,8 +3,9 @@
 // PLDI 1990, the "fast path"): when the decimal significand M is below 2^53 and the decimal exponent
 // E satisfies |E| <= 22, both M and 10^|E| are exact doubles, so the one IEEE multiplication or
 // division M * 10^E (M / 10^-E) is correctly rounded and equals Number(text) bit for bit.
-// Anything else (more digits, huge exponents, quotes, odd spellings) is checked against a plain
-// decimal pattern and handed to Number(); "NaN", "Infinity", hex and the like are rejected.
+// A well-formed decimal outside that case (17 significant digits, huge exponents) goes to Number()
+// directly; anything else (quotes, odd spellings) is checked against a plain decimal pattern first,
+// and "NaN", "Infinity", hex and the like are rejected.
 import { CR, NL, SPACE, TAB, decodeBytes, fieldEnd, unquoteField } from './csv-bytes.ts';
 
 export const NUM_OK = 0;
@@ -40,6 +41,7 @@ export function scanNumber(b: Uint8Array, p: number, delim: number, out: NumberS
   let i = p;
   let c = b[i];
   while (c === SPACE || (c === TAB && delim !== TAB)) c = b[++i];
+  const start = i;
   let neg = false;
   if (c === 45) { neg = true; c = b[++i]; } else if (c === 43) c = b[++i];
   let m = 0;
@@ -72,21 +74,22 @@ export function scanNumber(b: Uint8Array, p: number, delim: number, out: NumberS
     }
     e10 += eneg ? -e : e;
   }
+  const stop = i;
   while (c === SPACE || (c === TAB && delim !== TAB)) c = b[++i];
   if (!(c === delim || c === NL || (c === CR && b[i + 1] === NL))) return slowNumber(b, p, delim, out);
-  // m is exact while it stays below 2^53 (every partial sum is smaller than the final one).
-  if (m >= TWO53) return slowNumber(b, p, delim, out);
-  let v: number;
-  if (m === 0) v = 0;
-  else if (e10 >= 0) {
-    if (e10 > 22) return slowNumber(b, p, delim, out);
-    v = m * POW10[e10];
-  } else {
-    if (e10 < -22) return slowNumber(b, p, delim, out);
-    v = m / POW10[-e10];
-  }
   out.end = i;
   out.status = NUM_OK;
+  // m is exact while it stays below 2^53 (every partial sum is smaller than the final one).
+  let v: number;
+  if (m >= TWO53 || e10 > 22 || e10 < -22) {
+    // A well-formed plain decimal outside the exact case (e.g. 17 significant digits): Number() rounds it.
+    v = Number(String.fromCharCode.apply(null, b.subarray(start, stop) as unknown as number[]));
+    if (!Number.isFinite(v)) return slowNumber(b, p, delim, out);
+    return v;
+  }
+  if (m === 0) v = 0;
+  else if (e10 >= 0) v = m * POW10[e10];
+  else v = m / POW10[-e10];
   return neg ? -v : v;
 }
 

@@ -119,7 +119,7 @@ describe('parseCsvText: errors name the file, line and column', () => {
   });
 
   it('irregular sampling beyond the tolerance (a step neither regular nor a gap)', () => {
-    const rows = base().map(([t, q], i) => [(i < 50 ? i * 0.01 : i * 0.01 + 0.003).toFixed(4), q]);
+    const rows = base().map(([, q], i) => [(i < 50 ? i * 0.01 : i * 0.01 + 0.003).toFixed(4), q]);
     const e = dataError(() => parseCsvText(text(rows), 'swing-a.csv', map));
     expect(e.message).toBe('swing-a.csv line 52, column 1 "t": irregular sampling: the step from t = 0.49 s (line 51) to t = 0.503 s is 0.013 s, ' +
       '30% off the median step 0.01 s of the recording (tolerance 1%; steps over 1.5x the median are gaps and split the run). If the time column is rounded, export it with more decimals');
@@ -172,7 +172,7 @@ describe('parseCsvText: errors name the file, line and column', () => {
 describe('parseCsvText: fixes and warnings', () => {
   it('splits a run at a gap and reports the split as a fix', () => {
     // 100 samples at 0.01 s, then 0.35 s extra: t jumps from 0.99 to 1.35 (a 0.36 s step, 35 samples missing)
-    const rows = swingRows(200).map(([t, q], i) => [(i < 100 ? i * 0.01 : i * 0.01 + 0.35).toFixed(2), q]);
+    const rows = swingRows(200).map(([, q], i) => [(i < 100 ? i * 0.01 : i * 0.01 + 0.35).toFixed(2), q]);
     const r = parseCsvText(csv(['t', 'theta'], rows), 'g.csv', map);
     expect(r.recording.runs.map((x) => [x.name, x.t.length, x.t[0]])).toEqual([['g.csv [0..0.99 s]', 100, 0], ['g.csv [1.35..2.34 s]', 100, 1.35]]);
     expect(r.fixes).toEqual([{ code: 'gap-split', file: 'g.csv', run: 'g.csv', message: 'split the recording of g.csv at t = 1.35 s (line 102): gap of 0.36 s after t = 0.99 s, about 35 missing samples' }]);
@@ -181,7 +181,7 @@ describe('parseCsvText: fixes and warnings', () => {
   });
 
   it('drops a stretch too short to be a run and says so', () => {
-    const rows = swingRows(110).map(([t, q], i) => [(i < 100 ? i * 0.01 : i * 0.01 + 1).toFixed(2), q]);
+    const rows = swingRows(110).map(([, q], i) => [(i < 100 ? i * 0.01 : i * 0.01 + 1).toFixed(2), q]);
     const r = parseCsvText(csv(['t', 'theta'], rows), 'h.csv', map);
     expect(r.recording.runs.map((x) => x.t.length)).toEqual([100]);
     expect(r.fixes.map((f) => f.code)).toEqual(['gap-split', 'short-piece-dropped']);
