@@ -17,10 +17,9 @@ import { accumulateGrams, sumGramSets, type GramSet } from './gram.ts';
 import { heldOutMu } from './heldOut.ts';
 import { findLandscape } from './landscape.ts';
 import { buildLibrary, formulaOf, termGrad, termValue, type Term } from './library.ts';
-import { logDecrementZeta } from './logDecrement.ts';
+import { estimateNoise, logDecrement } from '../signal/index.ts';
 import { minimize1d } from './minimize1d.ts';
 import { specFromTerm, type CandidateReport, type EnergyModel, type Landscape, type ReplayReport, type Verdict, type VerdictCode } from './model.ts';
-import { noiseSigma } from './noise.ts';
 import { dominantPeriod } from './period.ts';
 import { prepareRecording, type PreparedRun } from './prepare.ts';
 import { sparsify } from './sparsify.ts';
@@ -161,7 +160,7 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
   if (totalFree < 200 || minLen < 20) return fail('too-little-data', `only ${totalFree} free-swing samples (shortest run ${minLen}); at least 200 are needed`);
 
   // Noise and signal level.
-  const sigmas = free.map((r) => noiseSigma(r.q)).sort((a, b) => a - b);
+  const sigmas = free.map((r) => estimateNoise(r.q, dt).sigma).sort((a, b) => a - b);
   const sigma = sigmas[sigmas.length >> 1];
   let ss = 0, s1 = 0;
   for (const r of free) { let m = 0; for (const x of r.q) m += x; m /= r.q.length; for (const x of r.q) { ss += (x - m) ** 2; s1++; } }
@@ -376,7 +375,17 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
   });
 
   const zetaLambda = -lambda / (2 * omegaN);
-  const zetaLog = logDecrementZeta(states.map((s) => s.q), 10 * sigma);
+  const zetaLog = (() => {
+    // Log decrement per free run (engine/signal, references.md §2) with the chosen window; median over runs.
+    const z: number[] = [];
+    for (const r of free) {
+      if (r.q.length < 64) continue;
+      const ld = logDecrement(r.q, dt, { smoothing: { halfWindow: pick.window, order: Math.min(order, 2 * pick.window) }, noiseSigma: sigma });
+      if (ld.status === 'ok' && Number.isFinite(ld.zeta)) z.push(ld.zeta);
+    }
+    z.sort((a, b) => a - b);
+    return z.length ? z[z.length >> 1] : null;
+  })();
   const model: EnergyModel = {
     format: 'ergostat-energy-model', version: 1, status: 'ok', verdict: verdict('ok', 'a lightly damped conserved energy was found'),
     coordinate: rec.coordinate,

@@ -1,6 +1,6 @@
 // State estimation from position samples: Savitzky–Golay smoothed position, velocity and
 // acceleration (Savitzky & Golay, Anal. Chem. 36 (1964) 1627) with one window for all three.
-import { savgolLocal as savgolFilter } from './savgolLocal.ts';
+import { savgolFilter } from '../signal/savgol.ts';
 
 export interface StateEstimate { q: Float64Array; v: Float64Array; a?: Float64Array }
 
