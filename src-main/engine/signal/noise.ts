@@ -8,6 +8,7 @@
 // few glitches do not inflate it.
 // Quantization: a reading rounded to a step q carries an error uniform on [-q/2, q/2] with
 // standard deviation q / sqrt(12) (common practice); that is taken as a floor.
+import { selectInPlace } from '../data/median.ts';
 
 export interface NoiseEstimate {
   /** Noise standard deviation in the signal's units (the larger of the two estimates below). */
@@ -34,10 +35,15 @@ function binomial(n: number, k: number): number {
   return r;
 }
 
-function median(a: Float64Array): number {
-  const s = Float64Array.from(a).sort();
-  const h = s.length >> 1;
-  return s.length % 2 ? s[h] : 0.5 * (s[h - 1] + s[h]);
+/** Median (mean of the two middle values for an even count) by selection; a is reordered. */
+function medianInPlace(a: Float64Array): number {
+  const n = a.length;
+  const h = n >> 1;
+  const upper = selectInPlace(a, h);
+  if (n % 2) return upper;
+  let lower = -Infinity;
+  for (let i = 0; i < h; i++) if (a[i] > lower) lower = a[i]; // a[0..h-1] <= a[h] after selection
+  return 0.5 * (lower + upper);
 }
 
 /**
@@ -47,10 +53,12 @@ function median(a: Float64Array): number {
  * grid values and would be biased by up to half a step. floor: the smallest cut-off (a step).
  */
 function robustSpread(d: Float64Array, floor: number): number {
-  const med = median(d);
+  const work = Float64Array.from(d);
+  const med = medianInPlace(work);
   const dev = new Float64Array(d.length);
   for (let i = 0; i < d.length; i++) dev[i] = Math.abs(d[i] - med);
-  const cut = 5 * Math.max(1.482602218505602 * median(dev), floor);
+  work.set(dev);
+  const cut = 5 * Math.max(1.482602218505602 * medianInPlace(work), floor);
   let n = 0, s = 0, s2 = 0;
   for (let i = 0; i < d.length; i++) {
     if (dev[i] <= cut) {
@@ -65,28 +73,34 @@ function robustSpread(d: Float64Array, floor: number): number {
 
 /**
  * The grid step q if every sample equals min(x) + integer * q (within 1e-3 of q), else 0.
- * q is the smallest positive gap between distinct sample values, or a divisor of it (2..6)
- * when a level was never visited. Continuous data fail the test for all but a few samples.
+ * q is the smallest non-zero change between successive samples, or a divisor of it (2..6).
+ * Continuous data fail the test for all but a few samples.
  */
 export function quantizationStep(x: Float64Array): number {
   const n = x.length;
   if (n < 3) return 0;
-  const s = Float64Array.from(x).sort();
-  const lowest = s[0];
-  const range = s[n - 1] - lowest;
+  let lowest = Infinity, highest = -Infinity;
+  for (let i = 0; i < n; i++) {
+    if (x[i] < lowest) lowest = x[i];
+    if (x[i] > highest) highest = x[i];
+  }
+  const range = highest - lowest;
   if (!(range > 0)) return 0;
+  // Smallest non-zero change between successive samples: one step for a quantized smooth signal
+  // (or a small multiple of it, tried below by its divisors).
   const tiny = range * 1e-12;
   let gap = Infinity;
   for (let i = 1; i < n; i++) {
-    const g = s[i] - s[i - 1];
+    const g = Math.abs(x[i] - x[i - 1]);
     if (g > tiny && g < gap) gap = g;
   }
+  if (!Number.isFinite(gap)) return 0;
   for (let div = 1; div <= 6; div++) {
     const q = gap / div;
     if (range / q > 1e12) break;
     let ok = true;
     for (let i = 0; i < n && ok; i++) {
-      const r = (s[i] - lowest) / q;
+      const r = (x[i] - lowest) / q;
       ok = Math.abs(r - Math.round(r)) < 1e-3;
     }
     if (ok) return q;
