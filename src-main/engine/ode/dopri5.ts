@@ -320,7 +320,7 @@ export function solveDopri5(rhs: Rhs, tSpan: readonly [number, number], y0: Arra
       t = tNew;
       if (stopY) { t = stopT; y.set(stopY); }
       if (onStep && onStep(t, y, t - tOld) === false) {
-        if (status !== 'event') { status = 'stopped'; message = `stopped by options.onStep at t = ${t}`; }
+        if (status !== 'event' && !last) { status = 'stopped'; message = `stopped by options.onStep at t = ${t}`; }
         break;
       }
       if (stopY || last) break;
