@@ -4,7 +4,7 @@
 // temp folder (streamed) and reused while its size matches the size recorded beside it.
 // Prints JSON lines {"name", "value", "unit"}; goals: >= 2 M rows/s, peak RSS < 400 MB.
 import { closeSync, existsSync, openSync, readFileSync, readSync, statSync, writeFileSync, writeSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { importRecordings } from '../src-main/recordings/index.ts';
 
@@ -77,8 +77,11 @@ let peak = process.memoryUsage.rss();
 const timer = setInterval(() => { peak = Math.max(peak, process.memoryUsage.rss()); }, 5);
 const rssBefore = process.memoryUsage.rss();
 t0 = performance.now();
+const cpu0 = process.cpuUsage();
 const result = await importRecordings([file], { time: 't', position: 'angle', run: 'run', angle: true });
 const seconds = (performance.now() - t0) / 1000;
+const cpu = process.cpuUsage(cpu0);
+const cpuSeconds = (cpu.user + cpu.system) / 1e6;
 clearInterval(timer);
 peak = Math.max(peak, process.memoryUsage.rss());
 const maxRss = process.resourceUsage().maxRSS * 1024; // kilobytes on Linux and macOS
@@ -89,6 +92,9 @@ emit('import.rows', samples, 'rows', { runs: result.recording.runs.length, fixes
 emit('import.wall', seconds, 's');
 emit('import.rowsPerSecond', rowsPerSecond, 'rows/s', { goal: 2e6, met: rowsPerSecond >= 2e6 });
 emit('import.throughput', size / 1e6 / seconds, 'MB/s');
+// CPU time of this process during the import (user + system, all threads): the figure to compare
+// when the machine is shared and wall time includes waiting for a core.
+emit('import.cpu', cpuSeconds, 's', { rowsPerCpuSecond: ROWS / cpuSeconds, loadAverage1min: loadavg()[0], cores: availableParallelism() });
 emit('import.rssBefore', rssBefore / 2 ** 20, 'MiB');
 emit('import.peakRssSampled', peak / 2 ** 20, 'MiB', { goal: 400, met: peak / 2 ** 20 < 400 });
 emit('import.maxRss', maxRss / 2 ** 20, 'MiB', { goal: 400, met: maxRss / 2 ** 20 < 400, note: 'process lifetime peak (includes writing the file when it was written now)' });
