@@ -38,6 +38,7 @@ function coef(a: Ast): { k: number; rest: Ast | undefined } {
   }
   if (a.kind === 'bin' && a.op === '*') {
     const c = coef(a.left);
+    if (c.k === 1 && c.rest === a.left) return { k: 1, rest: a }; // no factor: keep the node (and sharing)
     return { k: c.k, rest: c.rest ? { kind: 'bin', op: '*', left: c.rest, right: a.right } : a.right };
   }
   return { k: 1, rest: a };

@@ -57,7 +57,17 @@ export function compileFormula(formula: string | Ast, variables: readonly string
   }
   const allowed = [...index.keys(), ...fixed.keys(), ...CONSTANTS.keys()];
 
+  // Trees from differentiate share subtrees: compile each distinct node once.
+  const memo = new Map<Ast, Node>();
   function build(node: Ast): Node {
+    const known = memo.get(node);
+    if (known !== undefined) return known;
+    const r = buildNode(node);
+    memo.set(node, r);
+    return r;
+  }
+
+  function buildNode(node: Ast): Node {
     switch (node.kind) {
       case 'num': return node.value;
       case 'const': return CONSTANTS.get(node.name) as number;

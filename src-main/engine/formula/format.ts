@@ -30,13 +30,20 @@ export function formatFormula(ast: Ast): string {
         const inner = a.arg.kind === 'neg' || (a.arg.kind === 'num' && a.arg.value < 0) ? `(${raw(a.arg)})` : at(a.arg, UNARY);
         return `-${inner}`;
       }
-      case 'bin':
-        switch (a.op) {
-          case '+': case '-': return `${at(a.left, SUM)} ${a.op} ${at(a.right, PRODUCT)}`;
-          case '*': case '/': return `${at(a.left, PRODUCT)}${a.op}${at(a.right, UNARY)}`;
-          case '^': return `${at(a.left, ATOM)}^${at(a.right, UNARY)}`;
+      case 'bin': {
+        if (a.op === '^') return `${at(a.left, ATOM)}^${at(a.right, UNARY)}`;
+        // A left-leaning chain a + b - c ... (or a*b/c ...) is walked in a loop, not recursively,
+        // so long sums and products cannot exhaust the call stack.
+        const additive = a.op === '+' || a.op === '-';
+        const tail: string[] = [];
+        let cur: Ast = a;
+        while (cur.kind === 'bin' && (additive ? cur.op === '+' || cur.op === '-' : cur.op === '*' || cur.op === '/')) {
+          tail.push(additive ? ` ${cur.op} ${at(cur.right, PRODUCT)}` : `${cur.op}${at(cur.right, UNARY)}`);
+          cur = cur.left;
         }
-        break;
+        tail.push(at(cur, additive ? SUM : PRODUCT));
+        return tail.reverse().join('');
+      }
       case 'call': return `${a.name}(${a.args.map((x) => at(x, SUM)).join(', ')})`;
     }
     throw new TypeError('formatFormula: malformed tree'); // unreachable after checkAst

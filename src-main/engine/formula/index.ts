@@ -3,7 +3,7 @@
 export type { Ast, BinaryOp, BinNode, CallNode, ConstNode, ConstantName, FunctionName, NegNode, NumNode, VarNode } from './ast.ts';
 export { FormulaError } from './error.ts';
 export { FUNCTION_NAMES, isReservedName } from './functions.ts';
-export { parseFormula, MAX_NESTING } from './parse.ts';
+export { parseFormula, MAX_NESTING, MAX_TREE_DEPTH } from './parse.ts';
 export { MAX_FORMULA_LENGTH } from './tokenize.ts';
 export { compileFormula, type CompiledFormula, type CompileOptions } from './compile.ts';
 export { differentiate, dependsOn } from './differentiate.ts';

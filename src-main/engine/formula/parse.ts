@@ -10,6 +10,13 @@ import { describeToken, tokenize, type Token } from './tokenize.ts';
 export const MAX_NESTING = 200;
 
 /**
+ * Deepest tree accepted (a chain of n terms a + b + ... is n levels deep). Keeps every
+ * recursive walk of the tree (compiling, evaluating, differentiating) far from the call-stack
+ * limit; a formula of more than 500 terms in a row is not one a person writes or learns.
+ */
+export const MAX_TREE_DEPTH = 500;
+
+/**
  * Parses formula source into a plain-data syntax tree. Throws FormulaError (with the 1-based
  * column, what was expected and what was found) on any syntax error, unknown function or wrong
  * number of arguments. Names of variables are not checked here (compileFormula does that).
@@ -20,13 +27,23 @@ export function parseFormula(source: string): Ast {
   let pos = 0;
   let depth = 0;
   const peek = (): Token => tokens[pos];
+  // Depth of each tree built so far (leaves: 1), to bound MAX_TREE_DEPTH.
+  const depthOf = new Map<Ast, number>();
+  const d = (a: Ast): number => depthOf.get(a) ?? 1;
+  const node = <T extends Ast>(a: T, children: Ast[], at: Token): T => {
+    const depth = 1 + Math.max(...children.map(d));
+    if (depth > MAX_TREE_DEPTH) throw new FormulaError(at.column, `a formula at most ${MAX_TREE_DEPTH} levels deep (at most ${MAX_TREE_DEPTH} terms in a row)`, 'a deeper formula');
+    depthOf.set(a, depth);
+    return a;
+  };
   const isOp = (t: Token, text: string): boolean => t.type === 'op' && t.text === text;
 
   function sum(): Ast {
     let left = product();
     for (let t = peek(); isOp(t, '+') || isOp(t, '-'); t = peek()) {
       pos++;
-      left = { kind: 'bin', op: t.text as BinaryOp, left, right: product(` after "${t.text}"`) };
+      const right = product(` after "${t.text}"`);
+      left = node({ kind: 'bin', op: t.text as BinaryOp, left, right }, [left, right], t);
     }
     return left;
   }
@@ -35,7 +52,8 @@ export function parseFormula(source: string): Ast {
     let left = unary(after);
     for (let t = peek(); isOp(t, '*') || isOp(t, '/'); t = peek()) {
       pos++;
-      left = { kind: 'bin', op: t.text as BinaryOp, left, right: unary(` after "${t.text}"`) };
+      const right = unary(` after "${t.text}"`);
+      left = node({ kind: 'bin', op: t.text as BinaryOp, left, right }, [left, right], t);
     }
     return left;
   }
@@ -43,9 +61,11 @@ export function parseFormula(source: string): Ast {
   function unary(after: string): Ast {
     if (++depth > MAX_NESTING) throw new FormulaError(peek().column, `at most ${MAX_NESTING} levels of nesting`, 'deeper nesting');
     let result: Ast;
-    if (isOp(peek(), '-')) {
+    const t = peek();
+    if (isOp(t, '-')) {
       pos++;
-      result = { kind: 'neg', arg: unary(' after "-"') };
+      const arg = unary(' after "-"');
+      result = node({ kind: 'neg', arg }, [arg], t);
     } else {
       result = power(after);
     }
@@ -55,9 +75,11 @@ export function parseFormula(source: string): Ast {
 
   function power(after: string): Ast {
     const base = primary(after);
-    if (!isOp(peek(), '^')) return base;
+    const t = peek();
+    if (!isOp(t, '^')) return base;
     pos++;
-    return { kind: 'bin', op: '^', left: base, right: unary(' after "^"') };
+    const right = unary(' after "^"');
+    return node({ kind: 'bin', op: '^', left: base, right }, [base, right], t);
   }
 
   function primary(after: string): Ast {
@@ -104,7 +126,7 @@ export function parseFormula(source: string): Ast {
       if (isOp(t, ')')) {
         if (args.length < info.minArgs) throw new FormulaError(t.column, `"," and another argument (${takes})`, describeToken(t));
         pos++;
-        return { kind: 'call', name, args };
+        return node({ kind: 'call', name, args }, args, nameToken);
       }
       const wanted = args.length < info.maxArgs ? '"," or ")"' : '")"';
       const of = info.maxArgs === 1 ? 'the argument' : 'arguments';

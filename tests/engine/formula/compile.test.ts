@@ -114,6 +114,7 @@ describe('compileFormula: values, folding, arguments', () => {
       [{ kind: 'neg', arg: { kind: 'num', value: '1' } }, /formula.arg: expected a number in field "value"/],
       [{ kind: 'call', name: 'sin', args: [] }, /sin takes 1 argument, got 0/],
       [null, /expected a formula tree node/],
+      [Array.from({ length: 2500 }).reduce<unknown>((a) => ({ kind: 'neg', arg: a }), { kind: 'num', value: 1 }), /more than 2000 levels deep/],
     ] as const;
     for (const [ast, msg] of bad) expect(() => compileFormula(ast as unknown as Ast, ['q'])).toThrow(msg);
   });

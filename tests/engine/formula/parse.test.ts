@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { compileFormula, FormulaError, MAX_FORMULA_LENGTH, MAX_NESTING, parseFormula } from '../../../src-main/engine/formula/index.ts';
+import { compileFormula, differentiate, formatFormula, FormulaError, MAX_FORMULA_LENGTH, MAX_NESTING, MAX_TREE_DEPTH, parseFormula } from '../../../src-main/engine/formula/index.ts';
 import { strip } from './helpers.ts';
 
 const value = (src: string, env: Record<string, number> = {}): number =>
@@ -114,6 +114,22 @@ describe('parseFormula: errors carry the column and what was expected', () => {
     expect(errorOf(() => parseFormula('q+'.repeat(MAX_FORMULA_LENGTH))).column).toBe(MAX_FORMULA_LENGTH + 1);
     const ok = '('.repeat(MAX_NESTING - 2) + 'q' + ')'.repeat(MAX_NESTING - 2);
     expect(value(ok, { q: 5 })).toBe(5);
+  });
+
+  it('limits the tree depth (terms in a row), and handles the longest chains it accepts', () => {
+    const tooLong = 'q*'.repeat(MAX_TREE_DEPTH) + 'q';
+    const e = errorOf(() => parseFormula(tooLong));
+    expect(e.column).toBe(2 * MAX_TREE_DEPTH); // the operator that would make it too deep
+    expect(e.found).toBe('a deeper formula');
+    // The longest accepted product: compile, differentiate, print, without exhausting the stack.
+    // Independent value: d/dq q^n = n q^(n - 1) (elementary calculus).
+    const n = MAX_TREE_DEPTH;
+    const ast = parseFormula('q*'.repeat(n - 1) + 'q');
+    const d1 = differentiate(ast, 'q');
+    const q = 1.001;
+    const want = n * q ** (n - 1);
+    expect(Math.abs(compileFormula(d1, ['q']).eval(Float64Array.of(q)) - want)).toBeLessThan(1e-10 * want);
+    expect(formatFormula(ast)).toBe(tooLong.slice(2));
   });
 
   it('rejects a source that is not a string, naming the argument', () => {
