@@ -33,6 +33,9 @@ function splitOutsideQuotes(line: string, delim: string): string[] {
 /** Reads the header line (without its line end). `display` names the file in messages. */
 export function parseHeaderLine(line: string, file: string, display: string): CsvHeader {
   if (line.trim() === '') throw new DataError(file, 'the header line is empty; expected column names such as "t,theta"', 1, undefined, display);
+  if (line.includes('\r')) {
+    throw new DataError(file, 'the lines end in a bare carriage return (an old Mac text format); save the file with \\n or \\r\\n line ends', 1, undefined, display);
+  }
   const counts = new Map<number, number>(CANDIDATES.map((c) => [c, 0]));
   let quoted = false;
   let quotes = 0;
@@ -56,7 +59,9 @@ export function parseHeaderLine(line: string, file: string, display: string): Cs
 
 /** "1 "t", 2 "theta", 3 "run"": the header's columns for messages. */
 export function listColumns(names: string[]): string {
-  return names.map((n, i) => `${i + 1} "${n}"`).join(', ');
+  const clip = (n: string): string => (n.length > 40 ? `${n.slice(0, 37)}...` : n);
+  const shown = names.slice(0, 20).map((n, i) => `${i + 1} "${clip(n)}"`).join(', ');
+  return names.length > 20 ? `${shown}, ... (${names.length} in all)` : shown;
 }
 
 /** The 0-based index of the column a mapping entry names. */

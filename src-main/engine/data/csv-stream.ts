@@ -44,6 +44,8 @@ class ByteBuf {
 }
 
 const NEWLINE = new Uint8Array([NL]);
+/** A header line longer than this is taken as a sign that the file is not CSV text. */
+const MAX_HEADER = 1 << 20;
 
 export class CsvStreamParser {
   private readonly file: string;
@@ -106,6 +108,9 @@ export class CsvStreamParser {
       const nl = chunk.indexOf(NL);
       if (nl < 0) {
         this.carry.append(chunk, 0, n);
+        if (this.header === undefined && this.carry.len > MAX_HEADER) {
+          throw this.error(`no line end in the first ${MAX_HEADER} bytes: this does not look like a CSV file with a header line`, 1);
+        }
         return;
       }
       this.carry.append(chunk, 0, nl + 1);

@@ -153,6 +153,11 @@ describe('parseCsvText: errors name the file, line and column', () => {
     expect([e.file, e.line, e.column]).toEqual(['swing-a.csv', 1, undefined]);
   });
 
+  it('bare carriage-return line ends', () => {
+    const e = dataError(() => parseCsvText(csv(['t', 'theta'], base(), ',', '\r'), 'swing-a.csv', map));
+    expect(e.message).toBe('swing-a.csv line 1: the lines end in a bare carriage return (an old Mac text format); save the file with \\n or \\r\\n line ends');
+  });
+
   it('an empty file and a line with too many fields', () => {
     expect(dataError(() => parseCsvText('', 'swing-a.csv', map)).message).toBe('swing-a.csv line 1: the file is empty; expected a header line with the column names');
     const rows = base();

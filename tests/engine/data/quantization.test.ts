@@ -29,6 +29,15 @@ describe('estimateQuantization', () => {
     expect(r.levels).toBe(4000001);
   });
 
+  it('finds the grid of calibrated ADC counts (offset + count x gain, computed in floating point)', () => {
+    // a 12-bit angle encoder: gain 2 pi / 4096 rad per count, offset 0.0123 rad
+    const gain = (2 * Math.PI) / 4096;
+    const x = Float64Array.from({ length: 3000 }, (_, i) => 0.0123 + Math.round(200 * Math.sin(i * 0.02)) * gain);
+    const r = estimateQuantization(x)!;
+    expect(Math.abs(r.step - gain) / gain).toBeLessThan(1e-9);
+    expect(r.levels).toBe(401);
+  });
+
   it('reports no grid for unquantized data or a constant channel', () => {
     const x = Float64Array.from({ length: 2000 }, (_, i) => Math.sin(i * 0.37) + 1e-3 * Math.cos(i * 1.3));
     expect(estimateQuantization(x)).toBeUndefined();
