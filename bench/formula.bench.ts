@@ -37,19 +37,21 @@ function runHand(): number {
   return s;
 }
 
-function rate(run: () => number): { perSecond: number; sum: number } {
-  let best = Infinity, sum = 0;
-  for (let rep = 0; rep < 5; rep++) { // best of 5 after a warm-up run (common practice)
-    const t0 = performance.now();
-    sum = run();
-    const ms = performance.now() - t0;
-    if (rep > 0) best = Math.min(best, ms);
+/** Best time of each version over interleaved rounds (so load changes on a shared machine hit both alike). */
+function race(runs: Array<() => number>, rounds = 9): { perSecond: number; sum: number }[] {
+  const best = runs.map(() => Infinity), sums = runs.map(() => 0);
+  for (let r = 0; r < rounds; r++) {
+    runs.forEach((run, i) => {
+      const t0 = performance.now();
+      sums[i] = run();
+      const ms = performance.now() - t0;
+      if (r > 0) best[i] = Math.min(best[i], ms); // round 0 is the warm-up
+    });
   }
-  return { perSecond: N / (best / 1000), sum };
+  return best.map((ms, i) => ({ perSecond: N / (ms / 1000), sum: sums[i] }));
 }
 
-const compiled = rate(runCompiled);
-const written = rate(runHand);
+const [compiled, written] = race([runCompiled, runHand]);
 if (Math.abs(compiled.sum - written.sum) > 1e-9 * Math.abs(written.sum)) {
   throw new Error(`formula bench: compiled and hand-written sums differ (${compiled.sum} vs ${written.sum})`);
 }
