@@ -10,7 +10,8 @@ export default defineConfig({
   main: {
     build: {
       outDir: 'out/main',
-      rollupOptions: { input: { index: resolve(root, 'electron/main.ts') } },
+      // Engine jobs run in worker threads started from job-worker.js beside the main bundle.
+      rollupOptions: { input: { index: resolve(root, 'electron/main.ts'), 'job-worker': resolve(root, 'src-main/jobs/job-worker.ts') } },
     },
   },
   preload: {

@@ -10,6 +10,11 @@ import { SCHEMA_VERSION } from '../store/index.ts';
 import { importRecordings, parseCsvText, type ColumnMapping } from '../recordings/index.ts';
 import { Workspace } from './workspace.ts';
 import { decimateMinMax } from './decimate.ts';
+import { runJob, JobCancelled } from '../jobs/run-job.ts';
+import { serializeModel, validateModel } from '../model/index.ts';
+import type { EnergyModel } from '../engine/learn/index.ts';
+import { demoRecording } from '../demo/rigs.ts';
+import { energyGrid, potentialCurve, runEnergies } from './energy-views.ts';
 
 export function createHandlers(ws: Workspace = new Workspace()): Partial<Handlers<Operations>> {
   const mappingOf = (m: { time: string; position: string; run?: string; input?: string; angle?: boolean }): ColumnMapping => ({ ...m });
@@ -40,13 +45,55 @@ export function createHandlers(ws: Workspace = new Workspace()): Partial<Handler
       const recording = ws.addImport(result, [name], mappingOf(mapping));
       return { recording, project: ws.summary() };
     },
+    'recordings.demo': ({ rig }) => {
+      const d = demoRecording(rig);
+      const result = parseCsvText(d.file.text, d.file.name, d.mapping);
+      const recording = ws.addImport(result, [d.file.name], d.mapping);
+      return { recording, project: ws.summary() };
+    },
     'recordings.trace': ({ recording, run, maxPoints }) => {
-      const e = ws.store.recordings.get(recording);
+      const e = ws.store.recordings.peek(recording);
       if (!e) throw new OperationError('failed', `no recording named "${recording}"`);
       const r = e.recording.runs[run];
       if (!r) throw new OperationError('failed', `recording "${recording}" has ${e.recording.runs.length} run(s); run ${run} does not exist`);
       const d = decimateMinMax(r.t, r.q, maxPoints);
       return { t: d.t, q: d.y, decimated: d.decimated };
     },
+    'energy.learn': async ({ recording, mass, maxDegree, userTerms }, ctx) => {
+      const e = ws.store.recordings.peek(recording);
+      if (!e) throw new OperationError('failed', `no recording named "${recording}"`);
+      let model: EnergyModel;
+      try {
+        model = await runJob('learn', { recording: e.recording, options: { mass, maxDegree, userTerms } }, {
+          signal: ctx.signal,
+          onProgress: (fraction, message) => ctx.progress({ fraction, message }),
+        });
+      } catch (err) {
+        if (err instanceof JobCancelled) throw new OperationError('cancelled', 'learning cancelled');
+        throw err;
+      }
+      const name = ws.uniqueName((n) => ws.store.models.has(n), `${recording} energy`);
+      ws.store.models.put({ name, kind: 'energy-model', body: { recording, model: JSON.parse(serializeModel(model)) } });
+      ws.dirty = true;
+      return { name, recording, status: model.status, verdict: model.verdict, formula: model.formula, units: model.units, lambda: model.lambda, project: ws.summary() };
+    },
+    'energy.get': ({ model: name }) => {
+      const { model, recording } = storedModel(ws, name);
+      const rec = ws.store.recordings.peek(recording);
+      return { name, recording, model, runs: rec ? runEnergies(model, rec.recording) : [], potential: potentialCurve(model) };
+    },
+    'energy.grid': ({ model: name, qMin, qMax, vMin, vMax, nq, nv }) => {
+      const { model } = storedModel(ws, name);
+      if (model.status !== 'ok') throw new OperationError('failed', `model "${name}" has no conserved energy`);
+      return energyGrid(model, qMin, qMax, vMin, vMax, nq, nv);
+    },
   };
+}
+
+/** A stored model, validated again on the way out (project files are untrusted). */
+function storedModel(ws: Workspace, name: string): { model: EnergyModel; recording: string } {
+  const d = ws.store.models.peek(name);
+  if (!d) throw new OperationError('failed', `no model named "${name}"`);
+  const body = d.body as { recording?: unknown; model?: unknown };
+  return { model: validateModel(body.model, `model "${name}"`), recording: typeof body.recording === 'string' ? body.recording : '' };
 }

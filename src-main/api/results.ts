@@ -1,3 +1,4 @@
+import type { EnergyModel } from '../engine/learn/index.ts';
 // Result shapes of the operations in ./table.ts (types only: the renderer imports these).
 
 export interface AppInfo {
@@ -45,4 +46,43 @@ export interface DialogOpen {
 
 export interface DialogSave {
   path: string | null;
+}
+
+/** The headline of a learned model (the full model is in ModelDetail). */
+export interface ModelSummary {
+  name: string;
+  recording: string;
+  status: EnergyModel['status'];
+  verdict: EnergyModel['verdict'];
+  formula: string;
+  units: EnergyModel['units'];
+  lambda: number;
+  project: ProjectSummary;
+}
+
+export interface RunEnergy {
+  run: string;
+  t: number[];
+  q: number[];
+  v: number[];
+  H: number[];
+  /** (max H - min H) / mean H over the run, for the conservation table. */
+  relativeSpread: number;
+}
+
+export interface ModelDetail {
+  name: string;
+  recording: string;
+  /** The model document as stored (NaN written as null). */
+  model: EnergyModel;
+  runs: RunEnergy[];
+  /** V(q) = H(q, 0) on the data's range. */
+  potential: { q: number[]; V: number[] };
+}
+
+export interface EnergyGrid {
+  q: number[];
+  v: number[];
+  /** Row-major over v then q: H[j * nq + i] = H(q[i], v[j]). */
+  H: number[];
 }

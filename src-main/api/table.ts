@@ -30,6 +30,18 @@ export const operations = {
   'recordings.trace': operation<{ recording: string; run: number; maxPoints: number }, R.Trace>(
     "One run's samples, decimated to at most maxPoints keeping each bucket's extremes.",
     v.object({ recording: entryName, run: v.number({ integer: true, min: 0 }), maxPoints: v.number({ integer: true, min: 10, max: 200_000 }) })),
+  'energy.learn': operation<{ recording: string; mass?: number; maxDegree?: number; userTerms?: string[] }, R.ModelSummary>(
+    'Learn the conserved energy of a recording (runs in a worker thread).',
+    v.object({
+      recording: entryName,
+      mass: v.optional(v.number({ min: 1e-9, max: 1e9 })),
+      maxDegree: v.optional(v.number({ integer: true, min: 1, max: 10 })),
+      userTerms: v.optional(v.array(v.string({ min: 1, max: 500 }), { max: 20 })),
+    }), { long: true }),
+  'energy.get': operation<{ model: string }, R.ModelDetail>('A learned model in full, with its energy along each run of its recording.', v.object({ model: entryName })),
+  'energy.grid': operation<{ model: string; qMin: number; qMax: number; vMin: number; vMax: number; nq: number; nv: number }, R.EnergyGrid>(
+    'H on a grid of (q, v), for level sets in phase portraits.',
+    v.object({ model: entryName, qMin: v.number(), qMax: v.number(), vMin: v.number(), vMax: v.number(), nq: v.number({ integer: true, min: 2, max: 400 }), nv: v.number({ integer: true, min: 2, max: 400 }) })),
   'dialog.open': operation<{ kind: 'project' | 'recordings' }, R.DialogOpen>('Ask for files with the system dialog (desktop only).', v.object({ kind: v.literal('project', 'recordings') })),
   'dialog.save': operation<{ kind: 'project' | 'json' | 'csv' | 'html' | 'svg' | 'png'; suggestedName: string }, R.DialogSave>(
     'Ask where to save with the system dialog (desktop only).',

@@ -39,14 +39,14 @@ export class Workspace {
   dirty = false;
 
   summary(): ProjectSummary {
-    const docs = (c: ProjectStore['models']) => c.list().map((d) => ({ name: d.name, kind: d.kind }));
+    const docs = (c: ProjectStore["models"]) => c.peekAll().map((d) => ({ name: d.name, kind: d.kind }));
     return {
       path: this.path,
       dirty: this.dirty,
-      recordings: this.store.recordings.list().map(summarizeRecording),
+      recordings: this.store.recordings.peekAll().map(summarizeRecording),
       models: docs(this.store.models),
       designs: docs(this.store.designs),
-      trials: this.store.trials.list().map((t) => ({ name: t.name, kind: t.kind })),
+      trials: this.store.trials.peekAll().map((t) => ({ name: t.name, kind: t.kind })),
     };
   }
 

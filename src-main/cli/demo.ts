@@ -16,16 +16,14 @@ export const run: Verb = async (argv, io) => {
 
   for (const rig of ['pendulum', 'strip'] as DemoRig[]) {
     const d = demoRecording(rig);
-    const free = join(out, d.free.name);
-    const forced = join(out, d.forced.name);
-    writeFileSync(free, d.free.text);
-    writeFileSync(forced, d.forced.text);
+    const file = join(out, d.file.name);
+    writeFileSync(file, d.file.text);
     io.out(`# ${d.title}: ${d.description}`);
-    io.out(`wrote ${show(free)} and ${show(forced)}`);
+    io.out(`wrote ${show(file)}`);
     if (args.flags.has('data-only')) continue;
     const m = d.mapping;
-    const common = ['--time', m.time, '--position', m.position, ...(m.angle ? ['--angle'] : [])];
-    const steps: string[][] = [['check', free, ...common, '--run', m.run!]];
+    const columns = ['--time', m.time, '--position', m.position, '--run', m.run, '--input', m.input, ...(m.angle ? ['--angle'] : [])];
+    const steps: string[][] = [['check', file, ...columns]];
     for (const step of steps) {
       io.out('');
       io.out(`$ ergostat ${step.map((s) => (s.includes(out) ? show(s) : s)).join(' ')}`);

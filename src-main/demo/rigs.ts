@@ -4,10 +4,11 @@
 //
 //  - "Larkspur lab pendulum": a rod pendulum on a 12-bit absolute encoder (angle wrapped to
 //    [-pi, pi)), 200 Hz, five free swings (one starts fast enough to go over the top) and one
-//    run driven by a torque motor with a recorded torque channel.
+//    run driven by its torque motor; the DAQ logs the torque command on every run (0 when the
+//    drive is disabled).
 //  - "Tamsin bistable strip": a buckled steel strip clamped on a shaker table, tip displacement
 //    from a laser triangulation sensor (14-bit over +-10 mm), 1 kHz; four free runs from both
-//    wells and from above the barrier, and one run with the shaker's drive force recorded.
+//    wells and from above the barrier, and one run with the shaker's drive force.
 // Everything about these rigs is invented for the demo.
 import { solveDopri5 } from '../engine/ode/index.ts';
 import { builtinPlant, type Plant, type PlantSpec } from '../engine/plant/index.ts';
@@ -28,11 +29,9 @@ export interface DemoRecording {
   /** The plant the data was simulated from (for tests and for comparing what was learned). */
   plant: PlantSpec;
   /** Column mapping for the import. */
-  mapping: { time: string; position: string; run?: string; input?: string; angle: boolean };
-  /** Free-swing files (one file with a run column). */
-  free: DemoFile;
-  /** A driven run with its input channel. */
-  forced: DemoFile;
+  mapping: { time: string; position: string; run: string; input: string; angle: boolean };
+  /** One file: free runs (input 0) and a driven run, with a run column and the input channel. */
+  file: DemoFile;
   /** Mass to pass to learning when the user knows it (kg), for the pendulum the bob mass. */
   mass: number;
 }
@@ -96,25 +95,23 @@ function pendulumDemo(): DemoRecording {
     [0, 10.2, 40], // over the top: rotates a few turns, then settles into swinging
     [2.8, -0.5, 40],
   ];
-  const lines = ['time,angle,run'];
+  const lines = ['time,angle,torque,run'];
   starts.forEach(([q0, v0, dur], k) => {
     const { t, q } = simulate(plant, q0, v0, dur, rate);
     const m = measure(q, sensor, rng);
-    for (let i = 0; i < t.length; i++) lines.push(`${fmt(t[i], 3)},${fmt(m[i], 6)},swing-${k + 1}`);
+    for (let i = 0; i < t.length; i++) lines.push(`${fmt(t[i], 3)},${fmt(m[i], 6)},0,swing-${k + 1}`);
   });
   const torque = drive(0.12, [0.55, 0.83, 1.31], 40);
   const forcedRun = simulate(plant, 0.3, 0, 40, rate, torque);
   const fm = measure(forcedRun.q, sensor, rng);
-  const forced = ['time,angle,torque'];
-  for (let i = 0; i < fm.length; i++) forced.push(`${fmt(forcedRun.t[i], 3)},${fmt(fm[i], 6)},${fmt(torque(forcedRun.t[i]), 6)}`);
+  for (let i = 0; i < fm.length; i++) lines.push(`${fmt(forcedRun.t[i], 3)},${fmt(fm[i], 6)},${fmt(torque(forcedRun.t[i]), 6)},driven-1`);
   return {
     rig: 'pendulum',
     title: 'Larkspur lab pendulum',
     description: 'Rod pendulum (0.35 kg, 0.42 m) on a 12-bit absolute encoder, 200 Hz; five free swings and one torque-driven run.',
     plant: plant.spec as PlantSpec,
-    mapping: { time: 'time', position: 'angle', run: 'run', angle: true },
-    free: { name: 'larkspur-pendulum-free.csv', text: lines.join('\n') + '\n' },
-    forced: { name: 'larkspur-pendulum-driven.csv', text: forced.join('\n') + '\n' },
+    mapping: { time: 'time', position: 'angle', run: 'run', input: 'torque', angle: true },
+    file: { name: 'larkspur-pendulum.csv', text: lines.join('\n') + '\n' },
     mass: 0.35,
   };
 }
@@ -134,25 +131,23 @@ function stripDemo(): DemoRecording {
     [-0.0075, 0, 16], // above the barrier: snaps through a few times, then settles in one well
     [0.0069, 0.05, 16],
   ];
-  const lines = ['time,tip_displacement,run'];
+  const lines = ['time,tip_displacement,drive_force,run'];
   starts.forEach(([q0, v0, dur], k) => {
     const { t, q } = simulate(plant, q0, v0, dur, rate);
     const m = measure(q, sensor, rng);
-    for (let i = 0; i < t.length; i++) lines.push(`${fmt(t[i], 4)},${fmt(m[i], 8)},run-${k + 1}`);
+    for (let i = 0; i < t.length; i++) lines.push(`${fmt(t[i], 4)},${fmt(m[i], 8)},0,free-${k + 1}`);
   });
   const force = drive(0.6, [4.7, 5.9, 7.3], 16);
   const forcedRun = simulate(plant, 0.004, 0, 16, rate, force);
   const fm = measure(forcedRun.q, sensor, rng);
-  const forced = ['time,tip_displacement,drive_force'];
-  for (let i = 0; i < fm.length; i++) forced.push(`${fmt(forcedRun.t[i], 4)},${fmt(fm[i], 8)},${fmt(force(forcedRun.t[i]), 6)}`);
+  for (let i = 0; i < fm.length; i++) lines.push(`${fmt(forcedRun.t[i], 4)},${fmt(fm[i], 8)},${fmt(force(forcedRun.t[i]), 6)},driven-1`);
   return {
     rig: 'strip',
     title: 'Tamsin bistable strip',
     description: 'Buckled steel strip (0.02 kg effective) on a shaker table, laser tip displacement (14-bit, +-10 mm), 1 kHz; four free runs and one driven run.',
     plant: plant.spec as PlantSpec,
-    mapping: { time: 'time', position: 'tip_displacement', run: 'run', angle: false },
-    free: { name: 'tamsin-strip-free.csv', text: lines.join('\n') + '\n' },
-    forced: { name: 'tamsin-strip-driven.csv', text: forced.join('\n') + '\n' },
+    mapping: { time: 'time', position: 'tip_displacement', run: 'run', input: 'drive_force', angle: false },
+    file: { name: 'tamsin-strip.csv', text: lines.join('\n') + '\n' },
     mass: 0.02,
   };
 }

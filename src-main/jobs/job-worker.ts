@@ -1,0 +1,26 @@
+// Runs one engine job inside a worker thread: reads {kind, payload} from workerData, posts the
+// result (or the error message) to the parent and exits.
+import { parentPort, workerData } from 'node:worker_threads';
+import type { JobKinds, JobMessage } from './kinds.ts';
+import { learnEnergy } from '../engine/learn/index.ts';
+
+type Input = { [K in keyof JobKinds]: { kind: K; payload: JobKinds[K]['payload'] } }[keyof JobKinds];
+
+function post(m: JobMessage): void {
+  parentPort!.postMessage(m);
+}
+
+try {
+  const input = workerData as Input;
+  switch (input.kind) {
+    case 'learn': {
+      post({ type: 'progress', fraction: NaN, message: 'learning the energy' });
+      post({ type: 'done', result: learnEnergy(input.payload.recording, input.payload.options) });
+      break;
+    }
+    default:
+      post({ type: 'failed', message: `unknown job kind ${JSON.stringify((input as { kind: unknown }).kind)}` });
+  }
+} catch (e) {
+  post({ type: 'failed', message: e instanceof Error ? e.message : String(e) });
+}
