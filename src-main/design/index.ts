@@ -4,3 +4,4 @@ export * from './types.ts';
 export { controllerFromDesign, conditionHolds, wrapAngle } from './supervisor.ts';
 export type { Supervisor, SupervisorOptions, StageSwitch } from './supervisor.ts';
 export { compileDesignEnergy } from './energy.ts';
+export { readDesign, DesignError, DESIGN_LIMITS } from './validate.ts';
