@@ -26,6 +26,13 @@ export interface Dopri5Options {
   minFactor?: number;
   /** Largest step ratio h_new/h (default 10; 1 right after a rejected step). */
   maxFactor?: number;
+  /**
+   * Weight of the previous error in the step-size (PI) controller, 0 <= beta <= 0.2 (default 0.04, the
+   * value of Hairer's DOPRI5 code; HNW §IV.2, Gustafsson's "PI" control). 0 gives the classic controller
+   * h_new = h * safety * err^(-1/5) of HNW §II.4; a small beta damps the oscillating step sizes (and the
+   * many rejections) that the classic controller shows at loose tolerances.
+   */
+  beta?: number;
   /** Largest step magnitude (default |t1 - t0|). */
   hMax?: number;
   /** First step magnitude (default: HNW §II.4 starting-step algorithm). */
@@ -77,7 +84,7 @@ export interface OdeResult {
 }
 
 const FN = 'solveDopri5';
-const KNOWN = new Set(['rtol', 'atol', 'safety', 'minFactor', 'maxFactor', 'hMax', 'h0', 'maxSteps', 'tEval', 'saveSteps', 'dense', 'events', 'eventTol', 'onStep']);
+const KNOWN = new Set(['rtol', 'atol', 'safety', 'minFactor', 'maxFactor', 'beta', 'hMax', 'h0', 'maxSteps', 'tEval', 'saveSteps', 'dense', 'events', 'eventTol', 'onStep']);
 /** Error-estimator order of the embedded pair: err = O(h^5), so the step ratio uses the exponent 1/5. */
 const ERR_EXP = 1 / 5;
 /** Consecutive non-finite stage values tolerated (each shrinks h by minFactor) before giving up. */
@@ -119,6 +126,10 @@ export function solveDopri5(rhs: Rhs, tSpan: readonly [number, number], y0: Arra
   if (!(minFactor > 0 && minFactor < 1)) throw argError(FN, 'options.minFactor', 'a number in (0, 1)', minFactor);
   const maxFactor = options.maxFactor ?? 10;
   if (!(maxFactor > 1 && Number.isFinite(maxFactor))) throw argError(FN, 'options.maxFactor', 'a finite number > 1', maxFactor);
+  const beta = options.beta ?? 0.04;
+  if (!(beta >= 0 && beta <= 0.2)) throw argError(FN, 'options.beta', 'a number in [0, 0.2]', beta);
+  // Exponents of the PI controller: h_new = h * safety * err^-(1/5 - 0.75 beta) * errOld^beta (HNW §IV.2).
+  const expErr = ERR_EXP - 0.75 * beta;
   const span = Math.abs(t1 - t0);
   const hMax = options.hMax === undefined ? span : checkPositive(FN, 'options.hMax', options.hMax);
   const h0 = options.h0 === undefined ? undefined : checkPositive(FN, 'options.h0', options.h0);
@@ -202,6 +213,7 @@ export function solveDopri5(rhs: Rhs, tSpan: readonly [number, number], y0: Arra
     }
     let lastRejected = false;
     let nonFiniteRun = 0;
+    let errOld = 1e-4;
 
     // ---- main loop ----
     for (;;) {
@@ -260,7 +272,7 @@ export function solveDopri5(rhs: Rhs, tSpan: readonly [number, number], y0: Arra
       nonFiniteRun = 0;
       if (err > 1) {
         nRejected++;
-        h *= Math.max(minFactor, safety * err ** -ERR_EXP);
+        h *= Math.max(minFactor, safety * err ** -expErr);
         lastRejected = true;
         continue;
       }
@@ -324,8 +336,10 @@ export function solveDopri5(rhs: Rhs, tSpan: readonly [number, number], y0: Arra
         break;
       }
       if (stopY || last) break;
-      let fac = err === 0 ? maxFactor : Math.min(maxFactor, Math.max(minFactor, safety * err ** -ERR_EXP));
+      const errC = Math.max(err, 1e-10);
+      let fac = Math.min(maxFactor, Math.max(minFactor, safety * errC ** -expErr * errOld ** beta));
       if (lastRejected) fac = Math.min(fac, 1);
+      errOld = Math.max(err, 1e-4);
       h *= fac;
       if (Math.abs(h) > hMax) h = dir * hMax;
       lastRejected = false;
