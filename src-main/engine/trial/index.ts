@@ -17,3 +17,4 @@ export {
   buildTrial, buildController, compilePlantSpec, compileEnergySpec, runTrialSpec,
   type TrialSpec, type PlantSpec, type EnergySpec, type ControllerSpec, type LevelHoldSpec, type BuiltTrial, type TrialOutcome,
 } from './trial-spec.ts';
+export { traceCsv, metricsLine, monteCarloLine, type MonteCarloSummaryInput } from './report.ts';
