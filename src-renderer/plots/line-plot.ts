@@ -54,8 +54,8 @@ export function drawLinePlot(svgEl: SVGSVGElement, o: LinePlotOptions): void {
       .attr('y', y(o.band.hi)).attr('height', Math.max(1, y(o.band.lo) - y(o.band.hi)))
       .attr('fill', 'var(--accent-soft)').append('title').text(o.band.label);
   }
-  g.append('g').attr('transform', `translate(0,${o.height - margin.bottom})`).call(d3.axisBottom(x).ticks(8));
-  g.append('g').attr('transform', `translate(${margin.left},0)`).call(d3.axisLeft(y).ticks(6));
+  g.append('g').attr('transform', `translate(0,${o.height - margin.bottom})`).call(d3.axisBottom(x).ticks(8).tickFormat(d3.format('.4~g')));
+  g.append('g').attr('transform', `translate(${margin.left},0)`).call(d3.axisLeft(y).ticks(6).tickFormat(d3.format('.3~g')));
   g.append('text').attr('x', (margin.left + o.width - margin.right) / 2).attr('y', o.height - 6).attr('text-anchor', 'middle').attr('fill', 'currentColor').text(o.xLabel);
   g.append('text').attr('transform', `translate(14,${(o.height - margin.bottom + margin.top) / 2}) rotate(-90)`).attr('text-anchor', 'middle').attr('fill', 'currentColor').text(o.yLabel);
   for (const h of o.hLines ?? []) {

@@ -42,4 +42,21 @@ describe.skipIf(!chromiumAvailable && !required)('app in a real browser', () => 
     await e.shot('02-recordings');
     expect(e.consoleErrors.join("\n")).toBe("");
   });
+
+  it('adds the demo pendulum, learns its energy and draws the energy map', async () => {
+    const { page } = e;
+    await page.click('[data-testid=demo-pendulum]');
+    await page.waitForSelector('[data-recording="larkspur-pendulum"]');
+    await page.click('[data-step=energy]');
+    await page.selectOption('select[name=learn-recording]', 'larkspur-pendulum');
+    await page.click('[data-testid=learn]');
+    await page.waitForSelector('[data-testid=formula]', { timeout: 90_000 });
+    const formula = await page.locator('[data-testid=formula]').innerText();
+    expect(formula).toMatch(/cos\(q\)/);
+    expect(formula).toMatch(/v\^2/);
+    await page.waitForSelector('[data-testid=phase-plot] path.level');
+    await page.waitForSelector('[data-testid=potential-plot] path[data-series=V]');
+    await e.shot('03-energy-map');
+    expect(e.consoleErrors.join("\n")).toBe("");
+  }, 120_000);
 });
