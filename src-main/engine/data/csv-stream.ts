@@ -10,7 +10,7 @@ import { CR, NL, decodeBytes, fieldEnd, unquoteField } from './csv-bytes.ts';
 import { parseHeaderLine, resolveMapping, type CsvHeader, type ResolvedColumns } from './csv-header.ts';
 import { DataError, baseName, type ColumnRef } from './data-error.ts';
 import { plural } from './format.ts';
-import { GrowableF64 } from './growable-f64.ts';
+import { BlockPool, GrowableF64 } from './growable-f64.ts';
 import { checkMapping, resolveOptions, type ResolvedOptions } from './options.ts';
 import { NUM_MISSING, NUM_OK, numberScan, scanNumber } from './parse-number.ts';
 import type { ColumnMapping, FileImport, ImportOptions, Notice, RunStats } from './types.ts';
@@ -63,9 +63,10 @@ export class CsvStreamParser {
   private hasRun = false;
   private hasInput = false;
   // the run being read
-  private tb = new GrowableF64();
-  private qb = new GrowableF64();
-  private ub = new GrowableF64();
+  private readonly pool = new BlockPool();
+  private tb = new GrowableF64(this.pool);
+  private qb = new GrowableF64(this.pool);
+  private ub = new GrowableF64(this.pool);
   private runOpen = false;
   private label: string | undefined;
   private labelBytes = new Uint8Array(64);

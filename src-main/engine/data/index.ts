@@ -11,4 +11,4 @@ export { unwrapAngle, type Unwrapped } from './unwrap.ts';
 export { estimateQuantization, type Quantization } from './quantization.ts';
 export { findClipping, type Clipping, type ClipSide } from './clipping.ts';
 export { median, selectInPlace } from './median.ts';
-export { GrowableF64 } from './growable-f64.ts';
+export { BlockPool, GrowableF64 } from './growable-f64.ts';
