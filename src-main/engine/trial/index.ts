@@ -12,9 +12,9 @@ export { energyPump, openLoop, type EnergyPumpOptions } from './energy-pump.ts';
 export { levelHoldController, type LevelHoldController } from './level-hold-adapter.ts';
 export { lqrBaseline, type LqrBaselineOptions, type LqrBaselineResult } from './lqr-baseline.ts';
 export { compareWithBaselines, type BaselineSetup, type BaselineRow } from './baselines.ts';
-export { mismatchFactors, noiseStream, scaleParams } from './mismatch.ts';
+export { mismatchFactors, noiseStream } from './mismatch.ts';
 export {
-  buildTrial, buildController, compilePlantSpec, compileEnergySpec, runTrialSpec,
+  buildTrial, buildController, compileEnergySpec, runTrialSpec,
   type TrialSpec, type PlantSpec, type EnergySpec, type ControllerSpec, type LevelHoldSpec, type BuiltTrial, type TrialOutcome,
 } from './trial-spec.ts';
 export { traceCsv, metricsLine, monteCarloLine, type MonteCarloSummaryInput } from './report.ts';

@@ -18,9 +18,3 @@ export function mismatchFactors(names: readonly string[], p: number, seed: numbe
 export function noiseStream(run: number): number {
   return 2 * run + 2;
 }
-
-export function scaleParams(params: Record<string, number>, factors: Record<string, number>): Record<string, number> {
-  const out: Record<string, number> = {};
-  for (const [k, v] of Object.entries(params)) out[k] = v * (factors[k] ?? 1);
-  return out;
-}

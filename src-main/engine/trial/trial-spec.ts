@@ -1,11 +1,12 @@
 // A trial described as plain data (JSON-safe), so that it can cross a worker-thread boundary or
-// be stored: the plant as an acceleration formula with parameters (the plant.json shape of
-// issue 4), the model energy as a formula, the controller design, and the simulation settings.
+// be stored: the plant as plant.json (docs/plant-format.md, compiled by engine/plant), the model
+// energy as a formula, the controller design, and the simulation settings.
 // buildTrial() validates the description once, naming the field, and compiles it to the objects
 // simulate() drives; runTrialSpec() runs it and scores it.
 import type { Coordinate, EnergyFunction } from '../types.ts';
 import type { Controller, EstimatorOptions, SensorOptions, TrialPlant } from './types.ts';
 import { compileFormula, differentiate, parseFormula } from '../formula/index.ts';
+import { compilePlant, withParams, type PlantSpec } from '../plant/index.ts';
 import { energyPump, openLoop } from './energy-pump.ts';
 import { levelHoldController } from './level-hold-adapter.ts';
 import { simulate, type SimulateResult } from './simulate.ts';
@@ -13,12 +14,7 @@ import { trialMetrics, type TrialMetrics } from './metrics.ts';
 import { sensorSigmas } from './energy-resolution.ts';
 import { Pcg32 } from '../signal/random.ts';
 
-/** plant.json: q'' = acceleration(q, v, u, t; params). */
-export interface PlantSpec {
-  coordinate: Coordinate;
-  acceleration: string;
-  params: Record<string, number>;
-}
+export type { PlantSpec };
 
 /** The model's energy H(q, v; params) as a formula, with its Koopman eigenvalue. */
 export interface EnergySpec {
@@ -91,25 +87,6 @@ function checkParams(p: unknown, where: string): Record<string, number> {
   return p as Record<string, number>;
 }
 
-/** Compiles q'' = acceleration(q, v, u, t) with the given parameter values (overriding spec.params). */
-export function compilePlantSpec(spec: PlantSpec, params: Record<string, number> = spec.params, where = 'plant'): TrialPlant {
-  if (!isObject(spec)) throw new TypeError(`${where}: expected an object {coordinate, acceleration, params}`);
-  if (spec.coordinate !== 'angle' && spec.coordinate !== 'linear') throw new TypeError(`${where}.coordinate: expected "angle" or "linear", got ${JSON.stringify(spec.coordinate)}`);
-  if (typeof spec.acceleration !== 'string') throw new TypeError(`${where}.acceleration: expected a formula string`);
-  checkParams(params, `${where}.params`);
-  let f;
-  try {
-    f = compileFormula(spec.acceleration, ['q', 'v', 'u', 't'], { constants: params });
-  } catch (e) {
-    throw new TypeError(`${where}.acceleration: ${(e as Error).message}`);
-  }
-  const x = new Float64Array(4);
-  return {
-    coordinate: spec.coordinate,
-    accel(q, v, u, t) { x[0] = q; x[1] = v; x[2] = u; x[3] = t; return f.eval(x); },
-  };
-}
-
 /** Compiles the model energy H(q, v) and its gradient (symbolic derivatives, formula/differentiate). */
 export function compileEnergySpec(spec: EnergySpec, coordinate: Coordinate, where = 'energy'): EnergyFunction {
   if (!isObject(spec)) throw new TypeError(`${where}: expected an object {H, params, lambda}`);
@@ -151,12 +128,12 @@ export function buildController(spec: ControllerSpec, energy: EnergyFunction, wh
   throw new TypeError(`${where}.kind: expected "level-hold", "energy-pump" or "open-loop", got ${JSON.stringify((spec as { kind: unknown }).kind)}`);
 }
 
-/** Validates and compiles a trial; `params` replaces the plant's parameter values (mismatch). */
-export function buildTrial(spec: TrialSpec, params?: Record<string, number>): BuiltTrial {
+/** Validates and compiles a trial; `scale` multiplies plant parameters by factors (mismatch, engine/plant withParams). */
+export function buildTrial(spec: TrialSpec, scale?: Record<string, number>): BuiltTrial {
   if (!isObject(spec)) throw new TypeError('trial: expected an object');
-  const plant = compilePlantSpec(spec.plant, params ?? spec.plant?.params, 'trial.plant');
-  const nominal = params ? compilePlantSpec(spec.plant, spec.plant.params, 'trial.plant') : plant;
-  const energy = compileEnergySpec(spec.energy, spec.plant.coordinate, 'trial.energy');
+  const nominal = compilePlant(spec.plant, 'trial.plant');
+  const plant = scale ? withParams(nominal, scale) : nominal;
+  const energy = compileEnergySpec(spec.energy, nominal.coordinate, 'trial.energy');
   const controller = buildController(spec.controller, energy, 'trial.controller');
   return { plant, nominal, energy, controller };
 }
@@ -168,9 +145,9 @@ export interface TrialOutcome {
   metrics: TrialMetrics | null;
 }
 
-/** Runs one described trial (optionally with replaced plant parameters) and scores it. */
-export function runTrialSpec(spec: TrialSpec, params?: Record<string, number>): { outcome: TrialOutcome; result: SimulateResult } {
-  const built = buildTrial(spec, params);
+/** Runs one described trial (optionally with plant parameters scaled by factors) and scores it. */
+export function runTrialSpec(spec: TrialSpec, scale?: Record<string, number>): { outcome: TrialOutcome; result: SimulateResult } {
+  const built = buildTrial(spec, scale);
   if (!isObject(spec.metrics)) throw new TypeError('trial.metrics: expected an object {target, Q, R}');
   const target = finite(spec.metrics.target, 'trial.metrics.target');
   const rng = new Pcg32(spec.noiseSeed ?? 0, spec.noiseStream ?? 0);

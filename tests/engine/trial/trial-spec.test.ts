@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { buildTrial, compileEnergySpec, compilePlantSpec, runTrialSpec, type TrialSpec } from '../../../src-main/engine/trial/trial-spec.ts';
+import { buildTrial, compileEnergySpec, runTrialSpec, type TrialSpec } from '../../../src-main/engine/trial/trial-spec.ts';
 
 const spec: TrialSpec = {
   plant: { coordinate: 'angle', acceleration: '-(g/l)*sin(q) - c*v + u/(m*l^2)', params: { g: 9.81, l: 0.42, m: 0.5, c: 0.1 } },
@@ -10,7 +10,7 @@ const spec: TrialSpec = {
 
 describe('trial specs (plain data)', () => {
   it('compile the plant formula to the hand-written acceleration and the energy with its gradient', () => {
-    const p = compilePlantSpec(spec.plant);
+    const p = buildTrial(spec).plant;
     const e = compileEnergySpec(spec.energy, 'angle');
     const J = 0.5 * 0.42 ** 2;
     for (const [q, v, u] of [[0.3, -1, 0.2], [2, 0.5, -0.1]]) {
@@ -22,8 +22,11 @@ describe('trial specs (plain data)', () => {
       expect(g[1]).toBeCloseTo(J * v, 12);
     }
     expect(e.lambda).toBe(-0.1);
-    // Replaced parameters (mismatch) take effect.
-    expect(compilePlantSpec(spec.plant, { ...spec.plant.params, c: 0 }).accel(0, 1, 0, 0)).toBe(0);
+    // Scaled parameters (mismatch) take effect: c scaled by 0 removes the damping, l by 2 halves g/l.
+    expect(buildTrial(spec, { c: 0 }).plant.accel(0, 1, 0, 0)).toBe(0);
+    expect(buildTrial(spec, { l: 2 }).plant.accel(1, 0, 0, 0)).toBeCloseTo(-(9.81 / 0.84) * Math.sin(1), 12);
+    expect(buildTrial(spec, { l: 2 }).nominal.accel(1, 0, 0, 0)).toBeCloseTo(-(9.81 / 0.42) * Math.sin(1), 12);
+    expect(() => buildTrial(spec, { k: 2 })).toThrow(/scale\.k/);
   });
 
   it('run reproducibly (same noise seed, same trace) and survive a JSON round trip', () => {
