@@ -113,6 +113,7 @@ export function checkRun(raw: RawRun, ctx: RunContext): CheckedRun {
   const warnings: Notice[] = [];
   const fixes: Notice[] = [];
   const notice = (code: string, message: string): Notice => ({ code, file, run: raw.name, message });
+  const subject = raw.label !== undefined ? `${display} run "${raw.label}"` : display;
 
   // Warnings on the channel as recorded (before unwrapping, which would break the ADC's grid).
   const clip = findClipping(q, opts.clipSamples, { min: qmin, max: qmax });
@@ -121,13 +122,13 @@ export function checkRun(raw: RawRun, ctx: RunContext): CheckedRun {
     const a = s.longestStart;
     const more = s.stretches > 1 ? `; ${s.stretches} such stretches, ${s.samples} samples in all` : '';
     warnings.push(notice('clipping',
-      `${display} ${what}: ${pos} sits at its ${sideName} ${fmt(s.value)} ${unit} for ${s.longestLength} consecutive samples ` +
+      `${subject}: ${pos} sits at its ${sideName} ${fmt(s.value)} ${unit} for ${s.longestLength} consecutive samples ` +
         `(lines ${lineOf(a)}–${lineOf(a + s.longestLength - 1)})${more}; the sensor may be clipping`));
   }
   const quant = estimateQuantization(q, { min: qmin, max: qmax });
   if (quant !== undefined && quant.levels < opts.quantLevels) {
     warnings.push(notice('quantization',
-      `${display} ${what}: ${pos} is heavily quantized: step ${fmt(quant.step, 4)} ${unit}, ${quant.levels} levels over its range ` +
+      `${subject}: ${pos} is heavily quantized: step ${fmt(quant.step, 4)} ${unit}, ${quant.levels} levels over its range ` +
         `(${quant.bits.toFixed(1)} bits, fewer than ${fmt(opts.quantLevels)} levels); velocity estimates will need strong smoothing`));
   }
 

@@ -215,14 +215,14 @@ describe('parseCsvText: fixes and warnings', () => {
     const rows = Array.from({ length: 400 }, (_, k) => [(k / 200).toFixed(3), Math.max(-0.5, Math.min(0.5, Math.sin((2 * Math.PI * k) / 100))).toFixed(6)]);
     const r = parseCsvText(csv(['t', 'theta'], rows), 'k.csv', map);
     expect(r.warnings.map((w) => w.code)).toEqual(['clipping', 'clipping']);
-    expect(r.warnings[1].message).toBe('k.csv the recording: position "theta" sits at its maximum 0.5 m for 33 consecutive samples (lines 11–43); 4 such stretches, 132 samples in all; the sensor may be clipping');
+    expect(r.warnings[1].message).toBe('k.csv: position "theta" sits at its maximum 0.5 m for 33 consecutive samples (lines 11–43); 4 such stretches, 132 samples in all; the sensor may be clipping');
   });
 
   it('warns of heavy quantization with the step and the equivalent bits', () => {
     // 101 levels of 0.01 rad over [-0.5, 0.5]: log2(101) = 6.66 bits
     const rows = Array.from({ length: 500 }, (_, k) => [(k / 100).toFixed(2), (Math.round(50 * Math.sin(1.3 * k)) / 100).toFixed(2)]);
     const r = parseCsvText(csv(['t', 'theta'], rows), 'q.csv', { ...map, angle: true });
-    expect(r.warnings).toEqual([{ code: 'quantization', file: 'q.csv', run: 'q.csv', message: 'q.csv the recording: position "theta" is heavily quantized: step 0.01 rad, 101 levels over its range (6.7 bits, fewer than 256 levels); velocity estimates will need strong smoothing' }]);
+    expect(r.warnings).toEqual([{ code: 'quantization', file: 'q.csv', run: 'q.csv', message: 'q.csv: position "theta" is heavily quantized: step 0.01 rad, 101 levels over its range (6.7 bits, fewer than 256 levels); velocity estimates will need strong smoothing' }]);
     expect(r.stats[0].quantStep).toBeCloseTo(0.01, 14);
   });
 
