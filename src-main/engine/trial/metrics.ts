@@ -26,6 +26,8 @@ export interface MetricsOptions {
   minCyclesInBand?: number;
   /** Longest cycle window, s (see cycle-average.ts). Default 10. */
   maxWindow?: number;
+  /** The actuator limit, to report how often the input sat at it (saturatedShare). */
+  uMax?: number;
 }
 
 export interface TrialMetrics {
@@ -60,6 +62,8 @@ export interface TrialMetrics {
   workNet: number;
   /** Total variation of u: sum of |u_k - u_{k-1}|. */
   totalVariation: number;
+  /** Share of the last tailCycles windows with |u| at uMax (null without uMax): near 1 with no convergence means uMax is too small. */
+  saturatedShare: number | null;
 }
 
 export function trialMetrics(trace: Trace, options: MetricsOptions): TrialMetrics {
@@ -93,8 +97,11 @@ export function trialMetrics(trace: Trace, options: MetricsOptions): TrialMetric
   // Tail: the last `tail` windows (or the last tenth of the trace when there are none).
   const i0 = m > 0 ? cyc.first[Math.max(0, m - tail)] : Math.floor(0.9 * (n - 1));
   const i1 = m > 0 ? cyc.last[m - 1] : n;
-  let hMin = Infinity, hMax = -Infinity, qMin = Infinity, qMax = -Infinity, hs = 0;
+  const uMax = options.uMax;
+  if (uMax !== undefined && !(uMax > 0)) throw new RangeError(`trialMetrics: uMax must be > 0, got ${uMax}`);
+  let hMin = Infinity, hMax = -Infinity, qMin = Infinity, qMax = -Infinity, hs = 0, sat = 0;
   for (let i = i0; i < i1; i++) {
+    if (uMax !== undefined && Math.abs(u[i]) >= uMax * (1 - 1e-9)) sat++;
     if (H[i] < hMin) hMin = H[i];
     if (H[i] > hMax) hMax = H[i];
     if (q[i] < qMin) qMin = q[i];
@@ -139,5 +146,6 @@ export function trialMetrics(trace: Trace, options: MetricsOptions): TrialMetric
     workAbs,
     workNet,
     totalVariation: tv,
+    saturatedShare: uMax === undefined ? null : sat / (i1 - i0),
   };
 }

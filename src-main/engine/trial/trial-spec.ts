@@ -138,6 +138,9 @@ export function buildTrial(spec: TrialSpec, scale?: Record<string, number>): Bui
   return { plant, nominal, energy, controller };
 }
 
+/** Share of the final cycles at the input limit above which a failed trial is blamed on uMax. */
+export const SATURATED_HINT = 0.5;
+
 export interface TrialOutcome {
   status: SimulateResult['status'];
   message: string;
@@ -162,9 +165,15 @@ export function runTrialSpec(spec: TrialSpec, scale?: Record<string, number>): {
     delaySamples: spec.delaySamples, sensor: spec.sensor, estimator, random: () => rng.uniform(),
   });
   const T = result.diagnostics.T;
+  const uMax = spec.controller.kind !== 'open-loop' && spec.controller.uMax !== undefined && Number.isFinite(spec.controller.uMax) ? spec.controller.uMax : undefined;
   const metrics = result.trace.t.length >= 2
-    ? trialMetrics(result.trace, { ...spec.metrics, target, energy: built.energy, sensor: sensorSigmas(result.diagnostics.sensorStep, spec.sensor?.noiseStd ?? 0, T, estimator) })
+    ? trialMetrics(result.trace, { ...spec.metrics, target, uMax, energy: built.energy, sensor: sensorSigmas(result.diagnostics.sensorStep, spec.sensor?.noiseStd ?? 0, T, estimator) })
     : null;
   const converged = result.status === 'ok' && metrics !== null && metrics.converged;
-  return { outcome: { status: result.status, message: result.message, converged, metrics }, result };
+  let message = result.message;
+  if (result.status === 'ok' && metrics && !converged && metrics.saturatedShare !== null && metrics.saturatedShare > SATURATED_HINT) {
+    // Reported, not hidden: the limit, not the law, is what stops the energy from reaching the band.
+    message = `not converged: |u| sat at uMax = ${uMax} for ${(100 * metrics.saturatedShare).toFixed(0)}% of the last cycles; uMax may be too small to reach or hold H* = ${target} against the losses`;
+  }
+  return { outcome: { status: result.status, message, converged, metrics }, result };
 }

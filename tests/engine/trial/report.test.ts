@@ -5,7 +5,7 @@ import type { TrialMetrics } from '../../../src-main/engine/trial/metrics.ts';
 const base: TrialMetrics = {
   target: 1, band: 0.02, resolution: null, bandBasis: 'relative', timeToBand: 2, converged: true, cycles: 5,
   finalEnergy: 1.01, finalError: 0.01, finalRelError: 0.01, spread: 0.1, spreadStd: 0.03, amplitude: 1, qMin: -1, qMax: 1,
-  J: 3, peakU: 0.5, workAbs: 1, workNet: 0.5, totalVariation: 4,
+  J: 3, peakU: 0.5, workAbs: 1, workNet: 0.5, totalVariation: 4, saturatedShare: null,
 };
 
 describe('trial text forms', () => {

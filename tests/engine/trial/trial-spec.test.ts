@@ -38,6 +38,20 @@ describe('trial specs (plain data)', () => {
     expect(Array.from(c.result.trace.u)).not.toEqual(Array.from(a.result.trace.u));
   });
 
+  it('report, not hide, a u_max too small to hold the target against the damping', () => {
+    // Level 1 J (a swing of about 93 degrees) needs on average |lambda| H* = 0.1 W against the losses
+    // (design.md §2, dH/dt = lambda H); a limit of 0.002 N m delivers at most 0.002 <|v|> ~ 0.01 W.
+    const weak = runTrialSpec({ ...spec, q0: 1.6, duration: 20, controller: { ...spec.controller, uMax: 0.002 } as TrialSpec['controller'] });
+    expect(weak.outcome.converged).toBe(false);
+    expect(weak.outcome.metrics!.saturatedShare).toBeGreaterThan(0.9);
+    expect(weak.outcome.message).toMatch(/uMax = 0\.002 .*too small/);
+    // With enough authority (and a gain high enough that the steady error c J <v^2> / (k <|v|>) is well
+    // inside the band) the same trial converges and says nothing of the kind.
+    const strong = runTrialSpec({ ...spec, q0: 1.6, duration: 20, controller: { ...spec.controller, Q: 100, uMax: 1 } as TrialSpec['controller'] });
+    expect(strong.outcome.converged).toBe(true);
+    expect(strong.outcome.message).toBe('completed');
+  });
+
   it('refuse bad descriptions, naming the field', () => {
     expect(() => buildTrial({ ...spec, plant: { ...spec.plant, coordinate: 'polar' as never } })).toThrow(/trial\.plant\.coordinate/);
     expect(() => buildTrial({ ...spec, plant: { ...spec.plant, acceleration: '-(g/l)*sin(q' } })).toThrow(/trial\.plant\.acceleration/);
