@@ -75,12 +75,41 @@ function dot(x: Float64Array, xo: number, y: Float64Array, yo: number, n: number
   return s0 + s1 + s2 + s3;
 }
 
-/** Upper triangle of X'X for n rows of the column-major block X (column j at j*stride), added to M. */
-function addGram(X: Float64Array, stride: number, n: number, p: number, M: Float64Array, xo = 0): void {
-  for (let j = 0; j < p; j++) {
-    const oj = j * stride + xo;
-    for (let k = j; k < p; k++) M[j * p + k] += dot(X, oj, X, k * stride + xo, n);
+/**
+ * Upper triangle of X'X for n rows of the column-major block X (column j at j*stride), added to M.
+ * Register-blocked: two rows of M by four columns per sweep over the samples (6 loads per 8
+ * multiply-adds instead of 16), which is what makes the streaming accumulation fast in JS.
+ */
+function addGram(X: Float64Array, stride: number, n: number, p: number, M: Float64Array): void {
+  let j = 0;
+  for (; j + 1 < p; j += 2) {
+    const a = j * stride, b = a + stride;
+    // The 2x2 diagonal block (j, j), (j, j+1), (j+1, j+1).
+    let d00 = 0, d01 = 0, d11 = 0;
+    for (let i = 0; i < n; i++) { const x = X[a + i], y = X[b + i]; d00 += x * x; d01 += x * y; d11 += y * y; }
+    M[j * p + j] += d00; M[j * p + j + 1] += d01; M[(j + 1) * p + j + 1] += d11;
+    let k = j + 2;
+    for (; k + 3 < p; k += 4) {
+      const c0 = k * stride, c1 = c0 + stride, c2 = c1 + stride, c3 = c2 + stride;
+      let s00 = 0, s01 = 0, s02 = 0, s03 = 0, s10 = 0, s11 = 0, s12 = 0, s13 = 0;
+      for (let i = 0; i < n; i++) {
+        const x = X[a + i], y = X[b + i];
+        const z0 = X[c0 + i], z1 = X[c1 + i], z2 = X[c2 + i], z3 = X[c3 + i];
+        s00 += x * z0; s01 += x * z1; s02 += x * z2; s03 += x * z3;
+        s10 += y * z0; s11 += y * z1; s12 += y * z2; s13 += y * z3;
+      }
+      const r0 = j * p + k, r1 = r0 + p;
+      M[r0] += s00; M[r0 + 1] += s01; M[r0 + 2] += s02; M[r0 + 3] += s03;
+      M[r1] += s10; M[r1 + 1] += s11; M[r1 + 2] += s12; M[r1 + 3] += s13;
+    }
+    for (; k < p; k++) {
+      const c = k * stride;
+      let s0 = 0, s1 = 0;
+      for (let i = 0; i < n; i++) { const z = X[c + i]; s0 += X[a + i] * z; s1 += X[b + i] * z; }
+      M[j * p + k] += s0; M[(j + 1) * p + k] += s1;
+    }
   }
+  if (j < p) M[j * p + j] += dot(X, j * stride, X, j * stride, n);
 }
 
 function symmetrise(M: Float64Array, p: number): void {

@@ -4,7 +4,7 @@ export { toEnergyFunction } from './energyFunction.ts';
 export { modelEvaluator, termFromSpec, specFromTerm } from './model.ts';
 export type { EnergyModel, TermSpec, Landscape, Well, Barrier, Verdict, VerdictCode, CandidateReport, ParetoPoint, ReplayReport } from './model.ts';
 export { buildLibrary, termLabel, formulaOf, type Term, type LibraryOptions } from './library.ts';
-export { accumulateGrams, sumGramSets, type GramSet } from './gram.ts';
+export { accumulateGrams, addGramSet, emptyGramSet, sumGramSets, type GramSet } from './gram.ts';
 export { generalizedEigen } from './geneig.ts';
 export { solveWeak, weakMatrices, nonConservation } from './weakForm.ts';
 export { findLandscape } from './landscape.ts';

@@ -25,7 +25,7 @@ import { prepareRecording, type PreparedRun } from './prepare.ts';
 import { sparsify } from './sparsify.ts';
 import { nonSeparableShare, replayError, separableParts } from './structure.ts';
 import { userTerm } from './userTerm.ts';
-import { estimateStates } from './velocity.ts';
+import { estimateStates, velocityOnly } from './velocity.ts';
 import { solveWeak, weakMatrices } from './weakForm.ts';
 
 export interface LearnOptions {
@@ -175,16 +175,16 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
   const velNoise = (m: number) => {
     const x = new Float64Array(4 * m + 3);
     x[2 * m + 1] = 1;
-    const r = estimateStates(x, dt, m, 4).v;
+    const r = velocityOnly(x, dt, m);
     let s2 = 0;
     for (let i = m; i < r.length - m; i++) s2 += r[i] * r[i];
     return sigma * Math.sqrt(s2);
   };
   const clampW = (m: number) => Math.max(2, Math.min(Math.floor((minLen - 1) / 2), 400, Math.round(m)));
-  let m0 = clampW(minLen / 40);
+  let m0 = clampW(Math.min(minLen / 40, 25));
   let period = NaN, shortest = NaN;
   for (let it = 0; it < 5; it++) {
-    const vs = free.map((r) => estimateStates(r.q, dt, m0, 4).v);
+    const vs = free.map((r) => velocityOnly(r.q, dt, m0));
     const pe = dominantPeriod(vs, dt, 0.1, 3 * velNoise(m0));
     period = pe.period;
     const finite = pe.perRun.filter(Number.isFinite);

@@ -12,3 +12,8 @@ export function estimateStates(q: Float64Array, dt: number, halfWindow: number, 
   const a = withAcceleration ? savgolFilter(q, dt, { halfWindow, order: Math.max(o, 2), derivative: 2 }) : undefined;
   return { q: qs, v, a };
 }
+
+/** Savitzky–Golay first derivative alone (order 4, or less for tiny windows). */
+export function velocityOnly(q: Float64Array, dt: number, halfWindow: number): Float64Array {
+  return savgolFilter(q, dt, { halfWindow, order: Math.min(4, 2 * halfWindow), derivative: 1 });
+}
