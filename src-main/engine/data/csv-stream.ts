@@ -73,6 +73,7 @@ export class CsvStreamParser {
   private labelLen = 0;
   private firstLine = 0;
   private blanks: number[] = [];
+  private runRows = 0;
   private lastT = 0;
   private lastLine = 0;
   private rows = 0;
@@ -242,20 +243,18 @@ export class CsvStreamParser {
   }
 
   private blankLine(line: number): void {
-    if (this.runOpen) this.blanks.push(this.tb.length);
+    if (this.runOpen) this.blanks.push(this.runRows);
     this.pendingBlank.push(line);
-  }
-
-  private sameLabel(b: Uint8Array, s: number, e: number): boolean {
-    if (e - s !== this.labelLen) return false;
-    const lb = this.labelBytes;
-    for (let i = 0; i < this.labelLen; i++) if (lb[i] !== b[s + i]) return false;
-    return true;
   }
 
   private row(b: Uint8Array, ls: number, le: number, t: number, q: number, u: number, line: number): void {
     if (this.hasRun) {
-      if (!this.runOpen || !this.sameLabel(b, ls, le)) {
+      let same = this.runOpen && le - ls === this.labelLen;
+      if (same) {
+        const lb = this.labelBytes;
+        for (let i = 0, j = ls; j < le; i++, j++) if (lb[i] !== b[j]) { same = false; break; }
+      }
+      if (!same) {
         const text = unquoteField(decodeBytes(b, ls, le));
         if (text === '') throw this.error('missing value (empty run label)', line, this.cols!.run);
         if (!this.runOpen || text !== this.label) {
@@ -267,7 +266,7 @@ export class CsvStreamParser {
         this.labelLen = le - ls;
       }
     } else if (!this.runOpen) this.openRun(undefined, line);
-    if (this.tb.length > 0 && !(t > this.lastT)) {
+    if (this.runRows > 0 && !(t > this.lastT)) {
       const problem = t === this.lastT
         ? `duplicate time ${t} s: line ${this.lastLine} has the same time stamp`
         : `time goes backwards: ${t} s after ${this.lastT} s on line ${this.lastLine}` +
@@ -277,6 +276,7 @@ export class CsvStreamParser {
     this.tb.push(t);
     this.qb.push(q);
     if (this.hasInput) this.ub.push(u);
+    this.runRows++;
     this.lastT = t;
     this.lastLine = line;
     if (this.rows++ === 0) this.firstDataLine = line;
@@ -291,6 +291,7 @@ export class CsvStreamParser {
     this.label = label;
     this.firstLine = line;
     this.blanks = [];
+    this.runRows = 0;
   }
 
   private closeRun(): void {
