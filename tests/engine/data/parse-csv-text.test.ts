@@ -36,6 +36,12 @@ describe('parseCsvText: format', () => {
     expect(r.stats[0]).toMatchObject({ samples: 80, firstLine: 2, lastLine: 81 });
   });
 
+  it('reads quoted numbers and blanks around numbers', () => {
+    const rows = swingRows(70).map(([t, q], i) => (i % 2 === 0 ? [`"${t}"`, ` ${q} `] : [t, `"${q}"`]));
+    const r = parseCsvText(csv(['t', 'theta'], rows, ';'), 'n.csv', map);
+    expect(Array.from(r.recording.runs[0].q)).toEqual(swingRows(70).map(([, q]) => Number(q)));
+  });
+
   it('reads a last line without a line end and ignores trailing blank lines', () => {
     const rows = swingRows(70);
     const text = csv(['t', 'theta'], rows).slice(0, -1);
@@ -151,6 +157,13 @@ describe('parseCsvText: errors name the file, line and column', () => {
     const e = dataError(() => parseCsvText(text(base()), 'swing-a.csv', { time: 't', position: 'angle' }));
     expect(e.message).toBe('swing-a.csv line 1: no column named "angle" for the position; the header has columns 1 "t", 2 "theta"');
     expect([e.file, e.line, e.column]).toEqual(['swing-a.csv', 1, undefined]);
+  });
+
+  it('an empty run label', () => {
+    const rows = swingRows(100).map((r) => [...r, 'A']);
+    rows[70][2] = '';
+    const e = dataError(() => parseCsvText(csv(['t', 'theta', 'run'], rows), 'swing-a.csv', { ...map, run: 'run' }));
+    expect(e.message).toBe('swing-a.csv line 72, column 3 "run": missing value (empty run label)');
   });
 
   it('bare carriage-return line ends', () => {
