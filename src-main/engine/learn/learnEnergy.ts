@@ -52,6 +52,24 @@ export interface LearnOptions {
 /** Thresholds of the verdict (relative non-conservation, spectral gap, damping ratio, signal-to-noise). */
 export const LEARN_LIMITS = { muMax: 0.02, gapMin: 5, zetaMax: 0.1, snrMin: 20, minPeriods: 3 };
 const WINDOW_FRACTIONS = [0.04, 0.07, 0.11, 0.17];
+/** Largest number of samples the window/lag/degree search looks at (the final fit uses all). */
+const SEARCH_SAMPLES = 300_000;
+
+/** Runs for the grid search: all of them when small enough, else evenly spread runs, cut to fit. */
+function searchSubset(runs: Float64Array[], limit: number): { runs: Float64Array[]; subset: boolean } {
+  const total = runs.reduce((s, q) => s + q.length, 0);
+  if (total <= limit) return { runs, subset: false };
+  const per = Math.max(Math.ceil(limit / runs.length), Math.min(limit, 2000));
+  const out: Float64Array[] = [];
+  let used = 0;
+  const stride = Math.max(1, Math.floor(runs.length / Math.max(1, Math.floor(limit / per))));
+  for (let i = 0; i < runs.length && used < limit; i += stride) {
+    const q = runs[i].subarray(0, Math.min(runs[i].length, per, limit - used));
+    out.push(q);
+    used += q.length;
+  }
+  return { runs: out, subset: true };
+}
 const LAG_SETS = [[0.05, 0.09, 0.14], [0.11, 0.19, 0.31]];
 
 interface Config { window: number; lagIdx: number[]; degree: number; active: number[]; lambda: number; shift: Float64Array; mu1: number; mu2: number; gap: number }
@@ -235,11 +253,16 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
   let chosen: Config | null = null;
   let fallback: Config | null = null;
   const better = (a: Config, b: Config | null) => !b || a.degree < b.degree || (a.degree === b.degree && a.gap > b.gap);
+  // The grid search runs on at most SEARCH_SAMPLES samples (runs spread over the recording, the
+  // longest cut); the chosen configuration is then accumulated over all the data.
+  const search = searchSubset(free.map((r) => r.q), SEARCH_SAMPLES);
+  const gramsFor = (m: number, qs: Float64Array[], lags: number[]) => {
+    const st = qs.map((q) => { const s = estimateStates(q, dt, m, order); return [s.q, s.v]; });
+    return { states: st, grams: segmentsOf(st, 4).map(([q, v]) => accumulateGrams(q, v, terms, lags)) };
+  };
   for (const m of windows) {
-    const states = free.map((r) => { const s = estimateStates(r.q, dt, m, order); return [s.q, s.v]; });
-    const segs = segmentsOf(states, 4);
-    const grams = segs.map(([q, v]) => accumulateGrams(q, v, terms, allLags));
-    segGrams.set(m, grams);
+    const { states, grams } = gramsFor(m, search.runs, allLags);
+    if (!search.subset) segGrams.set(m, grams);
     const pooledAll = sumGramSets(grams, P, allLags);
     for (let li = 0; li < lagSets.length; li++) {
       const pooled = selectLags(pooledAll, lagIdx[li]);
@@ -274,8 +297,11 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
   const lagsOf = (c: Config) => c.lagIdx.map((i) => allLags[i] * dt);
   const pick = chosen ?? fallback;
   if (!pick) return fail('not-conserved', 'the weak-form problem could not be solved for any window (a library term is constant on the data)', noiseInfo);
-  const grams = segGrams.get(pick.window)!.map((g) => selectLags(g, pick.lagIdx));
-  const pooled = sumGramSets(grams, P, pick.lagIdx.map((i) => allLags[i]));
+  const pickLags = pick.lagIdx.map((i) => allLags[i]);
+  const grams = segGrams.has(pick.window)
+    ? segGrams.get(pick.window)!.map((g) => selectLags(g, pick.lagIdx))
+    : gramsFor(pick.window, free.map((r) => r.q), pickLags).grams;
+  const pooled = sumGramSets(grams, P, pickLags);
   const held = heldOutMu(grams, pooled, dt, pick.lambda, pick.shift, pick.active);
   const full = solveWeak(pooled, dt, pick.lambda, pick.shift, pick.active);
   const nullDim = Array.from(full.mu).filter((x) => x <= LEARN_LIMITS.muMax).length;
