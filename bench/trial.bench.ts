@@ -4,7 +4,7 @@
 //    12-bit encoder with noise, filtered-difference velocity; plant and energy written as closures.
 //    Also the same scalar trial built from a plain-data spec (formula-compiled plant and energy).
 // 2. Monte Carlo: trials of 60 s at 1 kHz with +-15% mismatch, on 1 and on 2 workers. The full
-//    1000 trials take too long here, so a stated number of runs (argv[2], default 40) is timed and
+//    1000 trials take too long here, so a stated number of runs (argv[2], default 40; 0 skips) is timed and
 //    the wall time extrapolated linearly to 1000 (worker start-up included once, so the
 //    extrapolation slightly overstates it). Prints JSON lines {"name", "value", "unit", ...}.
 import { simulate } from '../src-main/engine/trial/simulate.ts';
@@ -43,11 +43,11 @@ function stepsPerSecond(name: string, makeController: () => ReturnType<typeof le
     const rng = new Pcg32(1, 1);
     return simulate({ plant, energy: H, controller: makeController(), q0: 0.05, v0: 0, duration: 20, rateHz: 1000, sensor: { bits: 12, noiseStd: 5e-4 }, random: () => rng.uniform() });
   };
-  run(); // warm-up
+  run(); run(); // warm-up (JIT)
   let steps = 0, samples = 0;
   const t0 = performance.now();
   const c0 = process.cpuUsage();
-  while (performance.now() - t0 < 1500) { const r = run(); steps += r.diagnostics.rk4Steps; samples += r.diagnostics.controllerSteps; }
+  for (let i = 0; i < 8; i++) { const r = run(); steps += r.diagnostics.rk4Steps; samples += r.diagnostics.controllerSteps; }
   const s = (performance.now() - t0) / 1000;
   const cpu = cpuSeconds(c0);
   emit(`${name} rk4 steps per second`, steps / s, 'steps/s', { perCpuSecond: Math.round(steps / cpu), controllerSamplesPerSecond: Math.round(samples / s), innerSteps: 2 });
@@ -65,18 +65,18 @@ const spec = (duration: number): TrialSpec => ({
   q0: 0.05, v0: 0, duration, rateHz: 1000, sensor: { bits: 12, noiseStd: 5e-4 }, metrics: { target },
 });
 {
-  runTrialSpec(spec(5));
+  runTrialSpec(spec(20)); runTrialSpec(spec(20));
   const t0 = performance.now();
   const c0 = process.cpuUsage();
   let steps = 0;
-  while (performance.now() - t0 < 1500) steps += runTrialSpec(spec(20)).result.diagnostics.rk4Steps;
+  for (let i = 0; i < 8; i++) steps += runTrialSpec(spec(20)).result.diagnostics.rk4Steps;
   emit('closed loop from a plain-data spec (formula-compiled plant and energy), scalar law', steps / ((performance.now() - t0) / 1000), 'steps/s', { perCpuSecond: Math.round(steps / cpuSeconds(c0)) });
 }
 
 const runs = Number(process.argv[2] ?? 40);
-if (!Number.isInteger(runs) || runs < 2) throw new RangeError(`trial.bench: runs (argv[2]) must be an integer >= 2, got ${process.argv[2]}`);
+if (!Number.isInteger(runs) || (runs < 2 && runs !== 0)) throw new RangeError(`trial.bench: runs (argv[2]) must be 0 (skip the Monte Carlo part) or an integer >= 2, got ${process.argv[2]}`);
 const wall: Record<number, number> = {};
-for (const workers of [1, 2]) {
+for (const workers of runs > 0 ? [1, 2] : []) {
   const t0 = performance.now();
   const c0 = process.cpuUsage();
   const r = await runMonteCarlo({ trial: spec(60), runs, mismatch: 0.15, seed: 2026 }, { workers });
@@ -85,4 +85,4 @@ for (const workers of [1, 2]) {
   emit(`Monte Carlo ${runs} x 60 s at 1 kHz, ${workers} worker${workers > 1 ? 's' : ''}`, ms / 1000, 's', { cpuSeconds: Number(cpuSeconds(c0).toFixed(2)), convergedShare: r.convergedShare, status: r.status, loadAverage: loadavg()[0] });
   emit(`Monte Carlo 1000 x 60 s at 1 kHz, ${workers} worker${workers > 1 ? 's' : ''} (extrapolated from ${runs} runs)`, ((ms / runs) * 1000) / 1000, 's', { extrapolated: true });
 }
-emit('Monte Carlo speed-up, 2 workers vs 1', wall[1] / wall[2], 'x', { goal: 1.8, loadAverage: loadavg()[0] });
+if (runs > 0) emit('Monte Carlo speed-up, 2 workers vs 1', wall[1] / wall[2], 'x', { goal: 1.8, loadAverage: loadavg()[0] });
