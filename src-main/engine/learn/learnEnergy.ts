@@ -72,7 +72,7 @@ function searchSubset(runs: Float64Array[], limit: number): { runs: Float64Array
 }
 const LAG_SETS = [[0.05, 0.09, 0.14], [0.11, 0.19, 0.31]];
 
-interface Config { window: number; lagIdx: number[]; degree: number; active: number[]; lambda: number; shift: Float64Array; mu1: number; mu2: number; gap: number }
+interface Config { window: number; lagIdx: number[]; degree: number; active: number[]; lambda: number; shift: Float64Array; mu1: number; mu2: number; gap: number; heldOut: number }
 
 function blankModel(coordinate: Recording['coordinate'], verdict: Verdict, dt: number): EnergyModel {
   return {
@@ -252,7 +252,7 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
   const segGrams = new Map<number, GramSet[]>();
   let chosen: Config | null = null;
   let fallback: Config | null = null;
-  const better = (a: Config, b: Config | null) => !b || a.degree < b.degree || (a.degree === b.degree && a.gap > b.gap);
+  const found: Config[] = [];
   // The grid search runs on at most SEARCH_SAMPLES samples (runs spread over the recording, the
   // longest cut); the chosen configuration is then accumulated over all the data.
   const search = searchSubset(free.map((r) => r.q), SEARCH_SAMPLES);
@@ -286,13 +286,25 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
         const mu = (l: number) => { try { return solveWeak(pooled, dt, l, shift, active).mu[0]; } catch { return Infinity; } };
         const best = minimize1d(mu, lamRange[0], lamRange[1], { scan: 10, tol: 1e-4 * omegaN });
         const sol = solveWeak(pooled, dt, best.x, shift, active);
-        const cfg: Config = { window: m, lagIdx: lagIdx[li], degree: d, active, lambda: best.x, shift, mu1: sol.mu[0], mu2: sol.mu[1], gap: sol.gap };
-        const found = cfg.mu1 <= LEARN_LIMITS.muMax && cfg.gap >= LEARN_LIMITS.gapMin;
-        candidates.push({ halfWindow: m, lagsSeconds: lagSets[li].map((L) => L * dt), degree: found ? d : null, mu1: cfg.mu1, mu2: cfg.mu2, gap: cfg.gap, heldOut: NaN, lambda: cfg.lambda });
+        const cfg: Config = { window: m, lagIdx: lagIdx[li], degree: d, active, lambda: best.x, shift, mu1: sol.mu[0], mu2: sol.mu[1], gap: sol.gap, heldOut: NaN };
+        const ok = cfg.mu1 <= LEARN_LIMITS.muMax && cfg.gap >= LEARN_LIMITS.gapMin;
+        if (ok) cfg.heldOut = heldOutMu(grams.map((g) => selectLags(g, lagIdx[li])), pooled, dt, cfg.lambda, shift, active);
+        candidates.push({ halfWindow: m, lagsSeconds: lagSets[li].map((L) => L * dt), degree: ok ? d : null, mu1: cfg.mu1, mu2: cfg.mu2, gap: cfg.gap, heldOut: cfg.heldOut, lambda: cfg.lambda });
         if (!fallback || cfg.mu1 < fallback.mu1) fallback = cfg;
-        if (found) { if (better(cfg, chosen)) chosen = cfg; break; }
+        if (ok) { found.push(cfg); break; }
       }
     }
+  }
+  // Choice: the lowest degree at which a conserved function appears; among those configurations,
+  // the ones whose held-out non-conservation is within 1.5x of the best, and of these the
+  // largest spectral gap (a clear conserved function stands far below the next one).
+  if (found.length) {
+    const dMin = Math.min(...found.map((c) => c.degree));
+    const atMin = found.filter((c) => c.degree === dMin);
+    const hs = atMin.map((c) => c.heldOut).filter(Number.isFinite);
+    const hBest = hs.length ? Math.min(...hs) : NaN;
+    const eligible = atMin.filter((c) => !Number.isFinite(hBest) || !Number.isFinite(c.heldOut) || c.heldOut <= 1.5 * hBest);
+    chosen = eligible.reduce((a, b) => (b.gap > a.gap ? b : a));
   }
   const lagsOf = (c: Config) => c.lagIdx.map((i) => allLags[i] * dt);
   const pick = chosen ?? fallback;

@@ -50,6 +50,8 @@ describe('learnEnergy on simulated position-only recordings', () => {
     expect(m.status).toBe('ok');
     const e = toEnergyFunction(m);
     expect(gridR2(e.H, Htrue, [-Math.PI, Math.PI], [-11, 11], Htrue(0, 11))).toBeGreaterThanOrEqual(0.9999);
+    // Degree growth stops at 2, where H lives, before degree 4 where H^2 would also fit.
+    expect(m.library.degree).toBe(2);
     // One well at the bottom, the barrier at the top, 2 g/l above it (unit inertia).
     const L = m.landscape!;
     expect(L.periodic).toBe(true);
