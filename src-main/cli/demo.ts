@@ -23,11 +23,19 @@ export const run: Verb = async (argv, io) => {
     if (args.flags.has('data-only')) continue;
     const m = d.mapping;
     const columns = ['--time', m.time, '--position', m.position, '--run', m.run, '--input', m.input, ...(m.angle ? ['--angle'] : [])];
-    const steps: string[][] = [['check', file, ...columns]];
+    const model = join(out, `${rig}-model.json`);
+    const steps: string[][] = [
+      ['check', file, ...columns],
+      ['learn', file, ...columns, '--out', model],
+    ];
     for (const step of steps) {
       io.out('');
       io.out(`$ ergostat ${step.map((s) => (s.includes(out) ? show(s) : s)).join(' ')}`);
       const code = await main(step, io as Io);
+      if (code === 3) {
+        io.out(`(no conserved energy for the ${d.title}: the steps that need one are skipped)`);
+        break;
+      }
       if (code !== 0) {
         io.err(`ergostat demo: step "${step[0]}" ended with exit code ${code}`);
         return code;
