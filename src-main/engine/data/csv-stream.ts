@@ -54,6 +54,8 @@ export class CsvStreamParser {
   private readonly opts: ResolvedOptions;
   private readonly carry = new ByteBuf();
   private readonly scan = numberScan();
+  /** The current line's numbers, indexed by role. */
+  private readonly vals = new Float64Array(4);
   private line = 0;
   private header: CsvHeader | undefined;
   private cols: ResolvedColumns | undefined;
@@ -189,6 +191,7 @@ export class CsvStreamParser {
     const roles = this.roles;
     const ncol = this.ncol;
     const sc = this.scan;
+    const vals = this.vals;
     while (p < end) {
       const line = ++this.line;
       let c = b[p];
@@ -197,21 +200,15 @@ export class CsvStreamParser {
         p += c === NL ? 1 : 2;
         continue;
       }
-      let t = 0;
-      let q = 0;
-      let u = 0;
       let ls = 0;
       let le = 0;
       let col = 0;
       for (;;) {
         const role = roles[col];
         if (role === ROLE_T || role === ROLE_Q || role === ROLE_U) {
-          const v = scanNumber(b, p, delim, sc);
-          if (sc.status !== NUM_OK) throw this.valueError(col, line);
+          if (scanNumber(b, p, delim, sc) !== NUM_OK) throw this.valueError(col, line);
           p = sc.end;
-          if (role === ROLE_T) t = v;
-          else if (role === ROLE_Q) q = v;
-          else u = v;
+          vals[role] = sc.value[0];
         } else if (role === ROLE_RUN) {
           ls = p;
           p = fieldEnd(b, p, delim);
@@ -231,7 +228,7 @@ export class CsvStreamParser {
       if (col + 1 < ncol) {
         throw this.error(`missing value: the line has ${plural(col + 1, 'field')}, the header has ${ncol}`, line, this.columnRef(col + 1));
       }
-      this.row(b, ls, le, t, q, u, line);
+      this.row(b, ls, le, line);
     }
   }
 
@@ -247,7 +244,10 @@ export class CsvStreamParser {
     this.pendingBlank.push(line);
   }
 
-  private row(b: Uint8Array, ls: number, le: number, t: number, q: number, u: number, line: number): void {
+  /** Commits the values of one line (in this.vals; see NumberScan on why not as arguments). */
+  private row(b: Uint8Array, ls: number, le: number, line: number): void {
+    const vals = this.vals;
+    const t = vals[ROLE_T];
     if (this.hasRun) {
       let same = this.runOpen && le - ls === this.labelLen;
       if (same) {
@@ -273,9 +273,9 @@ export class CsvStreamParser {
           (this.hasRun ? '' : '; if the file holds several runs one after another, map a run column');
       throw this.error(problem, line, this.cols!.time);
     }
-    this.tb.push(t);
-    this.qb.push(q);
-    if (this.hasInput) this.ub.push(u);
+    this.tb.pushFrom(vals, ROLE_T);
+    this.qb.pushFrom(vals, ROLE_Q);
+    if (this.hasInput) this.ub.pushFrom(vals, ROLE_U);
     this.runRows++;
     this.lastT = t;
     this.lastLine = line;

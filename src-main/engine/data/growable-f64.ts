@@ -40,6 +40,12 @@ export class GrowableF64 {
     this.cur[this.fill++] = x;
   }
 
+  /** Pushes src[i] (no double crosses the call, so nothing is boxed if the JIT does not inline this). */
+  pushFrom(src: Float64Array, i: number): void {
+    if (this.fill === this.cur.length) this.grow();
+    this.cur[this.fill++] = src[i];
+  }
+
   private grow(): void {
     if (this.cur.length > 0) {
       this.blocks.push(this.cur);

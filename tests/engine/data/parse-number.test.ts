@@ -45,13 +45,15 @@ describe('parseNumberText', () => {
   it('reports an empty field as missing and stops at the delimiter or the line end', () => {
     const out = numberScan();
     const b = new TextEncoder().encode('3.5;;x\r\n');
-    expect(scanNumber(b, 0, 59, out)).toBe(3.5);
+    expect(scanNumber(b, 0, 59, out)).toBe(NUM_OK);
+    expect(out.value[0]).toBe(3.5);
     expect([out.status, out.end]).toEqual([NUM_OK, 3]);
     scanNumber(b, 4, 59, out);
     expect([out.status, out.end]).toEqual([NUM_MISSING, 4]);
     scanNumber(b, 5, 59, out);
     expect([out.status, out.end, out.text]).toEqual([NUM_INVALID, 6, 'x']);
     const c = new TextEncoder().encode('7e-3\n');
-    expect(scanNumber(c, 0, NL, out)).toBe(0.007);
+    scanNumber(c, 0, NL, out);
+    expect(out.value[0]).toBe(0.007);
   });
 });
