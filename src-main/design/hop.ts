@@ -63,8 +63,10 @@ export interface WellHopOptions {
     /** Fractions of the start well's depth for the start grid. Default [0.1, 0.45, 0.8]. */
     levels?: number[];
     maxDuration?: number;
-    /** Search u_max and margin when infeasible. Default true. */
-    search?: boolean;
+    /** Search u_max and/or margin when infeasible. Default true (both). */
+    search?: boolean | 'u_max' | 'margin';
+    /** Relative bracket width at which the searches stop. Default 0.03. */
+    relTol?: number;
     estimator?: EstimatorOptions;
   };
   source?: string;
@@ -85,6 +87,11 @@ export function designWellHop(model: EnergyModel, options: WellHopOptions): Cont
 }
 
 const fmt = (x: number) => Number(x.toPrecision(4)).toString();
+/** 4 significant digits rounded away from the infeasible side, so the printed value itself was verified or is safer. */
+const fmtRound = (x: number, up: boolean) => {
+  const p = 10 ** (Math.floor(Math.log10(Math.abs(x))) - 3);
+  return Number(((up ? Math.ceil(x / p) : Math.floor(x / p)) * p).toPrecision(4)).toString();
+};
 /** Shortest round-trip decimal: the formula carries the model's coefficients exactly. */
 const num = (x: number) => String(x);
 
@@ -296,14 +303,16 @@ export function designWellHopDetailed(model: EnergyModel, options: WellHopOption
       const why = [...counts].map(([k, c]) => `${c} ${k}`).join(', ');
       let detail = `infeasible at u_max = ${fmt(uMax0)}${unit}, margin ${fmt(margin0)} (${n - good}/${n} start states failed: ${why}; ${check.simulations} simulations)`;
       if (fo.search !== false) {
-        uSearch = searchUMax(problem, uMax0, margin0);
-        detail += uSearch.found !== null
-          ? `; feasible from u_max = ${fmt(uSearch.found)}${unit} (found by ${uSearch.method}, ${uSearch.simulations} simulations)`
-          : `; no u_max up to ${fmt(uSearch.bound)}${unit} works (${uSearch.simulations} simulations)`;
-        if (plan0.kind === 'hop') {
-          mSearch = searchMargin(problem, uMax0, margin0);
+        if (fo.search !== 'margin') {
+          uSearch = searchUMax(problem, uMax0, margin0, { relTol: fo.relTol });
+          detail += uSearch.found !== null
+            ? `; feasible from u_max = ${fmtRound(uSearch.found, true)}${unit} (found by ${uSearch.method}, ${uSearch.simulations} simulations)`
+            : `; no u_max up to ${fmt(uSearch.bound)}${unit} works (${uSearch.simulations} simulations)`;
+        }
+        if (plan0.kind === 'hop' && fo.search !== 'u_max') {
+          mSearch = searchMargin(problem, uMax0, margin0, { relTol: fo.relTol });
           detail += mSearch.found !== null
-            ? `; at u_max = ${fmt(uMax0)}${unit} a margin of ${fmt(mSearch.found)} works (found by ${mSearch.method}, ${mSearch.simulations} simulations)`
+            ? `; at u_max = ${fmt(uMax0)}${unit} a margin of ${fmtRound(mSearch.found, false)} works (found by ${mSearch.method}, ${mSearch.simulations} simulations)`
             : `; no margin down to ${fmt(mSearch.bound)} works at u_max = ${fmt(uMax0)}${unit} (${mSearch.simulations} simulations)`;
         }
       }
