@@ -458,7 +458,13 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
   else if (Number.isFinite(model.metrics.heldOut) && model.metrics.heldOut > 5 * LEARN_LIMITS.muMax) v = verdict('not-conserved', `the energy found is not conserved on held-out runs (relative non-conservation ${model.metrics.heldOut.toExponential(2)})`);
   else if (!(kappa > 0)) v = verdict('not-conserved', 'the conserved function found does not grow with the speed, so it is not an energy');
   else if (heavy) v = verdict('heavy-damping', `no lightly damped energy: ${heavyText}`);
-  if (v) { model.status = 'no-energy'; model.verdict = v; }
+  if (v) {
+    // The rejected candidate is not handed out as a result: only its diagnostics stay (metrics, damping).
+    model.status = 'no-energy'; model.verdict = v;
+    model.coefficients = model.coefficients.map(() => 0); model.offset = 0; model.formula = '';
+    model.landscape = null; model.replay = [];
+    model.structure = { separable: false, nonSeparableShare: NaN, massFormula: null, potentialFormula: null };
+  }
   return model;
 }
 

@@ -94,6 +94,19 @@ describe('learnEnergy on simulated position-only recordings', () => {
     expect(() => toEnergyFunction(m)).toThrow(/no conserved energy/);
   });
 
+  it('refuses a driven system whose drive is not recorded (chaotic forced Duffing)', () => {
+    // q'' = q - q^3 - 0.25 q' + 0.3 cos t: the forced double-well oscillator in its chaotic regime
+    // (Guckenheimer & Holmes 1983, §2.2, from memory); no function of (q, v) alone is conserved.
+    const sim = simulate({ accel: (q, v, t) => q - q ** 3 - 0.25 * v + 0.3 * Math.cos(t), inits: [[1, 0], [-1, 0.2], [0.5, 0.5], [1.5, 0], [-0.2, 0.3]], dt: 0.01, seconds: 60, noise: 0.002, bits: 14, seed: 4 });
+    const m = learnEnergy(sim.recording);
+    expect(m.status).toBe('no-energy');
+    expect(m.verdict.code).toBe('not-conserved');
+    expect(m.verdict.advice).toMatch(/--input/);
+    // The rejected fit is not handed out.
+    expect(m.formula).toBe('');
+    expect(m.coefficients.every((c) => c === 0)).toBe(true);
+  });
+
   it('gives a clear verdict for a single short run', () => {
     // 1.5 periods of a 1 Hz oscillator: fewer than the three periods required (LEARN_LIMITS).
     const sim = simulate({ accel: (q) => -((2 * Math.PI) ** 2) * q, inits: [[1, 0]], dt: 0.01, seconds: 1.5, noise: 0.002, bits: 14 });
