@@ -154,8 +154,7 @@ export function checkRun(raw: RawRun, ctx: RunContext): CheckedRun {
       continue;
     }
     const name = whole ? raw.name : `${raw.name} [${fmt(t[a])}..${fmt(t[b - 1])} s]`;
-    let pq: Float64Array;
-    pq = whole ? q : q.slice(a, b);
+    const pq = whole ? q : q.slice(a, b);
     if (ctx.angle) wraps += unwrapAngle(pq, pq).wraps; // in place: pq is ours
     const run: Run = { name, source: file, t: whole ? t : t.slice(a, b), q: pq };
     if (u !== undefined) run.u = whole ? u : u.slice(a, b);

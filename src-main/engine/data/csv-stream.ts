@@ -44,6 +44,7 @@ class ByteBuf {
 }
 
 const NEWLINE = new Uint8Array([NL]);
+const DELIMITER_NAMES: Record<number, string> = { 44: 'comma', 59: 'semicolon', 9: 'tab' };
 /** A header line longer than this is taken as a sign that the file is not CSV text. */
 const MAX_HEADER = 1 << 20;
 
@@ -217,7 +218,7 @@ export class CsvStreamParser {
         c = b[p];
         if (c === delim) {
           if (++col === ncol) {
-            throw this.error(`the line has more fields than the ${ncol} columns of the header (a stray delimiter, or an unquoted "${String.fromCharCode(delim)}" inside a value?)`, line, { index: ncol + 1, name: '' });
+            throw this.error(`the line has more fields than the ${ncol} columns of the header (a stray delimiter, or an unquoted ${DELIMITER_NAMES[delim]} inside a value?)`, line, { index: ncol + 1, name: '' });
           }
           p++;
           continue;

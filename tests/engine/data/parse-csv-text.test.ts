@@ -177,6 +177,7 @@ describe('parseCsvText: errors name the file, line and column', () => {
     rows[3].push('7');
     const e = dataError(() => parseCsvText(text(rows), 'swing-a.csv', map));
     expect([e.line, e.column]).toEqual([5, { index: 3, name: '' }]);
+    expect(e.message).toBe('swing-a.csv line 5, column 3: the line has more fields than the 2 columns of the header (a stray delimiter, or an unquoted comma inside a value?)');
   });
 
   it('bad arguments throw at the door, naming the argument', () => {
