@@ -14,6 +14,9 @@ import { runJob, JobCancelled } from '../jobs/run-job.ts';
 import { serializeModel, validateModel } from '../model/index.ts';
 import type { EnergyModel } from '../engine/learn/index.ts';
 import { demoRecording } from '../demo/rigs.ts';
+import { readDesign } from '../design/validate.ts';
+import type { ControllerDesign } from '../design/types.ts';
+import type { LevelTargetRequest } from '../design/level-hold.ts';
 import { energyGrid, potentialCurve, runEnergies } from './energy-views.ts';
 
 export function createHandlers(ws: Workspace = new Workspace()): Partial<Handlers<Operations>> {
@@ -86,6 +89,46 @@ export function createHandlers(ws: Workspace = new Workspace()): Partial<Handler
       const { model } = storedModel(ws, name);
       if (model.status !== 'ok') throw new OperationError('failed', `model "${name}" has no conserved energy`);
       return energyGrid(model, qMin, qMax, vMin, vMax, nq, nv);
+    },
+    'controller.design': async (a, ctx) => {
+      const { model } = storedModel(ws, a.model);
+      if (model.status !== 'ok') throw new OperationError('failed', `model "${a.model}" has no conserved energy to control`);
+      const need = (x: number | undefined, what: string) => {
+        if (x === undefined) throw new OperationError('bad-arguments', `controller.design: ${what} is required for this target`);
+        return x;
+      };
+      let design: ControllerDesign;
+      try {
+        if (a.mode === 'level-hold') {
+          const target: LevelTargetRequest =
+            a.target.kind === 'energy' ? { kind: 'energy', energy: need(a.target.value, 'the target energy'), well: a.well }
+            : a.target.kind === 'amplitude' ? { kind: 'amplitude', amplitude: need(a.target.value, 'the target amplitude'), well: a.well }
+            : { kind: 'at-rest', well: a.well };
+          design = await runJob('design', { model, kind: 'level-hold', options: {
+            target, uMax: a.uMax, rateHz: a.rateHz, integral: a.integral, mass: a.mass, inputGain: a.inputGain, weights: a.weights, source: `model "${a.model}"`,
+          } }, { signal: ctx.signal, onProgress: (fraction, message) => ctx.progress({ fraction, message }) });
+        } else {
+          const level = a.target.kind === 'energy' ? { kind: 'energy' as const, energy: need(a.target.value, 'the level') }
+            : a.target.kind === 'amplitude' ? { kind: 'amplitude' as const, amplitude: need(a.target.value, 'the amplitude') }
+            : { kind: 'at-rest' as const };
+          design = await runJob('design', { model, kind: 'well-hop', options: {
+            toWell: need(a.toWell, 'the target well'), level, fromWell: a.well, uMax: need(a.uMax, 'u_max'), margin: a.margin, sampleRateHz: a.rateHz, source: `model "${a.model}"`,
+          } }, { signal: ctx.signal, onProgress: (fraction, message) => ctx.progress({ fraction, message }) });
+        }
+      } catch (err) {
+        if (err instanceof JobCancelled) throw new OperationError('cancelled', 'design cancelled');
+        throw err;
+      }
+      const name = ws.uniqueName((n) => ws.store.designs.has(n), a.mode === 'well-hop' ? `${a.model} hop to well ${a.toWell}` : `${a.model} level hold`);
+      ws.store.designs.put({ name, kind: design.kind, body: { model: a.model, design: JSON.parse(JSON.stringify(design)) } });
+      ws.dirty = true;
+      return { name, model: a.model, design, project: ws.summary() };
+    },
+    'controller.get': ({ design: name }) => {
+      const d = ws.store.designs.peek(name);
+      if (!d) throw new OperationError('failed', `no design named "${name}"`);
+      const body = d.body as { model?: unknown; design?: unknown };
+      return { name, model: typeof body.model === 'string' ? body.model : '', design: readDesign(body.design, `design "${name}"`) };
     },
   };
 }

@@ -1,4 +1,5 @@
 import type { EnergyModel } from '../engine/learn/index.ts';
+import type { ControllerDesign } from '../design/types.ts';
 // Result shapes of the operations in ./table.ts (types only: the renderer imports these).
 
 export interface AppInfo {
@@ -85,4 +86,17 @@ export interface EnergyGrid {
   v: number[];
   /** Row-major over v then q: H[j * nq + i] = H(q[i], v[j]). */
   H: number[];
+}
+
+export interface DesignSummary {
+  name: string;
+  model: string;
+  design: ControllerDesign;
+  project: ProjectSummary;
+}
+
+export interface DesignDetail {
+  name: string;
+  model: string;
+  design: ControllerDesign;
 }

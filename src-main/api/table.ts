@@ -15,6 +15,21 @@ const columnMapping = v.object({
   angle: v.optional(v.boolean()),
 });
 
+export interface DesignArgs {
+  model: string;
+  mode: 'level-hold' | 'well-hop';
+  target: { kind: 'energy' | 'amplitude' | 'at-rest'; value?: number };
+  well?: number;
+  toWell?: number;
+  margin?: number;
+  uMax?: number;
+  rateHz?: number;
+  integral?: boolean;
+  mass?: number;
+  inputGain?: number;
+  weights?: { Q: number; R: number };
+}
+
 export const operations = {
   'app.info': operation<{}, R.AppInfo>('Version, file format version and the safety cautions.', v.object({})),
   'project.state': operation<{}, R.ProjectSummary>('What the open project holds.', v.object({})),
@@ -42,6 +57,23 @@ export const operations = {
   'energy.grid': operation<{ model: string; qMin: number; qMax: number; vMin: number; vMax: number; nq: number; nv: number }, R.EnergyGrid>(
     'H on a grid of (q, v), for level sets in phase portraits.',
     v.object({ model: entryName, qMin: v.number(), qMax: v.number(), vMin: v.number(), vMax: v.number(), nq: v.number({ integer: true, min: 2, max: 400 }), nv: v.number({ integer: true, min: 2, max: 400 }) })),
+  'controller.design': operation<DesignArgs, R.DesignSummary>(
+    'Design a level hold or a well hop from a learned model (runs in a worker thread).',
+    v.object({
+      model: entryName,
+      mode: v.literal('level-hold', 'well-hop'),
+      target: v.object({ kind: v.literal('energy', 'amplitude', 'at-rest'), value: v.optional(v.number()) }),
+      well: v.optional(v.number({ integer: true, min: 1, max: 100 })),
+      toWell: v.optional(v.number({ integer: true, min: 1, max: 100 })),
+      margin: v.optional(v.number({ min: 0, max: 10 })),
+      uMax: v.optional(v.number({ min: 0 })),
+      rateHz: v.optional(v.number({ min: 1, max: 1e6 })),
+      integral: v.optional(v.boolean()),
+      mass: v.optional(v.number({ min: 1e-12 })),
+      inputGain: v.optional(v.number({ min: 1e-12 })),
+      weights: v.optional(v.object({ Q: v.number({ min: 0 }), R: v.number({ min: 0 }) })),
+    }), { long: true }),
+  'controller.get': operation<{ design: string }, R.DesignDetail>('A stored controller design in full.', v.object({ design: entryName })),
   'dialog.open': operation<{ kind: 'project' | 'recordings' }, R.DialogOpen>('Ask for files with the system dialog (desktop only).', v.object({ kind: v.literal('project', 'recordings') })),
   'dialog.save': operation<{ kind: 'project' | 'json' | 'csv' | 'html' | 'svg' | 'png'; suggestedName: string }, R.DialogSave>(
     'Ask where to save with the system dialog (desktop only).',

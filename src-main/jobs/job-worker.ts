@@ -3,6 +3,8 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import type { JobKinds, JobMessage } from './kinds.ts';
 import { learnEnergy } from '../engine/learn/index.ts';
+import { designLevelHold } from '../design/level-hold.ts';
+import { designWellHop } from '../design/hop.ts';
 
 type Input = { [K in keyof JobKinds]: { kind: K; payload: JobKinds[K]['payload'] } }[keyof JobKinds];
 
@@ -16,6 +18,12 @@ try {
     case 'learn': {
       post({ type: 'progress', fraction: NaN, message: 'learning the energy' });
       post({ type: 'done', result: learnEnergy(input.payload.recording, input.payload.options) });
+      break;
+    }
+    case 'design': {
+      const p = input.payload;
+      post({ type: 'progress', fraction: NaN, message: p.kind === 'well-hop' ? 'planning the hop and checking it by simulation' : 'designing the level hold' });
+      post({ type: 'done', result: p.kind === 'well-hop' ? designWellHop(p.model, p.options) : designLevelHold(p.model, p.options) });
       break;
     }
     default:

@@ -3,9 +3,16 @@
 import type { Recording } from '../engine/types.ts';
 import type { EnergyModel } from '../engine/learn/index.ts';
 import type { LearnOptions } from '../engine/learn/index.ts';
+import type { ControllerDesign } from '../design/types.ts';
+import type { LevelHoldOptions } from '../design/level-hold.ts';
+import type { WellHopOptions } from '../design/hop.ts';
 
 export interface JobKinds {
   learn: { payload: { recording: Recording; options: LearnOptions }; result: EnergyModel };
+  /** A level hold, or a well hop (whose feasibility check simulates a grid of starts). */
+  design:
+    | { payload: { model: EnergyModel; kind: 'level-hold'; options: LevelHoldOptions }; result: ControllerDesign }
+    | { payload: { model: EnergyModel; kind: 'well-hop'; options: WellHopOptions }; result: ControllerDesign };
 }
 
 export type JobKind = keyof JobKinds;
