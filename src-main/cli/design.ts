@@ -18,7 +18,7 @@ import { SAFETY_CAUTIONS, SAFETY_DEFERENCE } from '../safety.ts';
 const USAGE = [
   'usage: ergostat design MODEL.json (--target-energy E | --target-amplitude A | --at-rest) [--well K]',
   '         [--weights Q,R] [--umax U] [--rate HZ] [--integral] [--mass KG | --input-gain G] --out DESIGN.json',
-  '       ergostat design MODEL.json --to-well K [--level E | --amplitude A | --at-rest] [--margin F] --umax U',
+  '       ergostat design MODEL.json --to-well K [--from-well K] [--level E | --amplitude A | --at-rest] [--margin F] --umax U',
   '         [--rate HZ] [--mass KG | --input-gain G] --out DESIGN.json',
   '  --target-energy E: hold the energy E (in the model\'s unit, J once calibrated);',
   '  --target-amplitude A: hold a swing of amplitude A about the bottom of the well (H* = V(q_well + A));',
@@ -26,7 +26,8 @@ const USAGE = [
   '  --weights Q,R: weights on (H - H*)^2 and u^2 (default: the law reaches u_max at 5% energy error);',
   '  --umax U: actuator limit |u| <= U; --rate HZ: controller sample rate (default 1000); --integral: integral action.',
   '  --mass KG (kg m^2 for an angle) or --input-gain G: needed when the model is per unit mass (the law computes u in the input\'s unit).',
-  '  --to-well K: a staged hop into well K (stage 1 over the barrier, stage 2 to --level/--amplitude/--at-rest in well K).',
+  '  --to-well K: a staged hop into well K (stage 1 over the barrier, stage 2 to --level/--amplitude/--at-rest in well K);',
+  '  --from-well K: the start well (needed with three or more wells); --margin F: raise to the barrier + F x its height (default 0.1).',
 ].join('\n');
 
 /**
@@ -42,7 +43,7 @@ const LEVEL_HOLD: Record<string, OptionSpec> = {
   weights: { kind: 'value' }, integral: { kind: 'flag' },
 };
 const WELL_HOP: Record<string, OptionSpec> = {
-  'to-well': { kind: 'value' }, level: { kind: 'value' }, amplitude: { kind: 'value' }, margin: { kind: 'value' },
+  'to-well': { kind: 'value' }, level: { kind: 'value' }, amplitude: { kind: 'value' }, margin: { kind: 'value' }, 'from-well': { kind: 'value' },
 };
 const SPEC: Record<string, OptionSpec> = { ...COMMON, ...LEVEL_HOLD, ...WELL_HOP };
 
@@ -153,7 +154,7 @@ async function wellHop(model: EnergyModel, args: ParsedArgs, source: string): Pr
   }
   try {
     return hop.designWellHop(calibratedModel(model, cal), {
-      toWell, level, uMax, margin: numberValue(args, 'margin'), sampleRateHz: positiveOption(args, 'rate'), source,
+      toWell, fromWell: intOption(args, 'from-well'), level, uMax, margin: numberValue(args, 'margin'), sampleRateHz: positiveOption(args, 'rate'), source,
     });
   } catch (err) {
     if (err instanceof RangeError || err instanceof TypeError) throw new DesignRefusal(err.message);
