@@ -16,6 +16,7 @@ import { Pcg32 } from '../src-main/engine/signal/random.ts';
 import type { EnergyFunction } from '../src-main/engine/types.ts';
 import type { TrialPlant } from '../src-main/engine/trial/types.ts';
 import { availableParallelism, loadavg } from 'node:os';
+import { readFileSync } from 'node:fs';
 
 function emit(name: string, value: number, unit: string, extra: Record<string, unknown> = {}): void {
   console.log(JSON.stringify({ name, value: Number(value.toPrecision(4)), unit, ...extra }));
@@ -53,7 +54,11 @@ function stepsPerSecond(name: string, makeController: () => ReturnType<typeof le
   emit(`${name} rk4 steps per second`, steps / s, 'steps/s', { perCpuSecond: Math.round(steps / cpu), controllerSamplesPerSecond: Math.round(samples / s), innerSteps: 2 });
 }
 
-console.error(`trial bench: ${availableParallelism()} cores, load average ${loadavg().map((x) => x.toFixed(1)).join(' ')} (shared machine: timings are indicative)`);
+let autogroup = 'unknown';
+try { autogroup = readFileSync('/proc/sys/kernel/sched_autogroup_enabled', 'utf8').trim(); } catch { /* not Linux */ }
+// With autogroup scheduling on a loaded machine, all threads of this session share one CPU share:
+// a second worker then gains little wall time, and the speed-up below says nothing about idle cores.
+console.error(`trial bench: ${availableParallelism()} cores, load average ${loadavg().map((x) => x.toFixed(1)).join(' ')}, sched_autogroup_enabled=${autogroup} (shared machine: timings are indicative)`);
 stepsPerSecond('closed loop, scalar level-hold law', () => levelHoldController(design));
 stepsPerSecond('closed loop, 2x2 integral level-hold law (CARE per sample)', () => levelHoldController({ ...design, integral: { Qw: 100 } }));
 
