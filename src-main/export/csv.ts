@@ -1,10 +1,13 @@
 // Trial traces as CSV and back: header `t,q,v,u,H` (plus `stage` when the trace has one), one row
 // per sample, numbers in JavaScript's shortest round-trip form (ECMA-262 Number::toString), which
 // reads back to the identical double, so nothing is lost; stages as integers; no comment lines.
-// NaN and infinities are written as NaN, Infinity, -Infinity. Lines end with \n.
+// -0 is written as -0; NaN and infinities as NaN, Infinity, -Infinity. Lines end with \n.
 import type { Trace } from '../engine/trial/types.ts';
 
 const COLUMNS = ['t', 'q', 'v', 'u', 'H'] as const;
+
+/** Shortest round-trip text; -0 keeps its sign (String(-0) is "0"). */
+const num = (x: number): string => (Object.is(x, -0) ? '-0' : String(x));
 
 export function traceToCsv(trace: Trace): string {
   if (trace === null || typeof trace !== 'object') throw new TypeError('trace: expected a Trace {t, q, v, u, H[, stage]}');
@@ -17,7 +20,7 @@ export function traceToCsv(trace: Trace): string {
   if (stage && stage.length !== n) throw new RangeError(`trace.stage: expected ${n} values (as trace.t), got ${stage.length}`);
   const lines: string[] = [stage ? 't,q,v,u,H,stage' : 't,q,v,u,H'];
   for (let i = 0; i < n; i++) {
-    let line = `${trace.t[i]},${trace.q[i]},${trace.v[i]},${trace.u[i]},${trace.H[i]}`;
+    let line = `${num(trace.t[i])},${num(trace.q[i])},${num(trace.v[i])},${num(trace.u[i])},${num(trace.H[i])}`;
     if (stage) line += `,${stage[i]}`;
     lines.push(line);
   }

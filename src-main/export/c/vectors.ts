@@ -18,7 +18,11 @@ import type { Controller, TrialPlant } from '../../engine/trial/types.ts';
 export interface VectorOptions {
   /** Plant to close the loop on; default: the design's model.acceleration. */
   plant?: TrialPlant;
-  /** Initial state; default: the initial stage's well (or the middle of the valid range) displaced by 10 % of the range, at rest. */
+  /**
+   * Initial state. Default: a few candidates are tried (at rest, 10 % of the valid range to either
+   * side of each well, or of the middle of the range) and the one whose table exercises the most
+   * (switches, saturation, rate limit, b = 0) is kept.
+   */
   q0?: number;
   v0?: number;
   /** Number of controller samples (rows). Default 3000. */
@@ -45,7 +49,25 @@ function margin(c: SwitchCondition, q: number, v: number, h: number, angle: bool
   return m;
 }
 
+/** The engine's test vectors for the design (see the header and VectorOptions). */
 export function computeVectors(design: ControllerDesign, opts: VectorOptions = {}): VectorTable {
+  if (opts.q0 !== undefined || opts.v0 !== undefined) return vectorsFrom(design, opts);
+  const vr = design.model.validRange;
+  const span = vr.qMax - vr.qMin;
+  const centres = design.model.wells.length > 0 ? design.model.wells.slice(0, 4).map((w) => w.q) : [0.5 * (vr.qMin + vr.qMax)];
+  let best: VectorTable | null = null, bestScore = -1;
+  for (const c of centres) {
+    for (const side of [1, -1]) {
+      const tab = vectorsFrom(design, { ...opts, q0: c + side * 0.1 * span, v0: 0 });
+      const k = tab.coverage;
+      const score = [k.switches, k.saturated, k.rateLimited, k.zeroB].filter((x) => x > 0).length * 1e7 + Math.min(k.switches, 9) * 1e6 + k.rows;
+      if (score > bestScore) { best = tab; bestScore = score; }
+    }
+  }
+  return best as VectorTable;
+}
+
+function vectorsFrom(design: ControllerDesign, opts: VectorOptions): VectorTable {
   const samples = opts.samples ?? 3000;
   if (!Number.isInteger(samples) || samples < 2 || samples > 200_000) throw new RangeError(`options.samples: expected an integer from 2 to 200000, got ${samples}`);
   const sup = controllerFromDesign(design);
@@ -54,9 +76,7 @@ export function computeVectors(design: ControllerDesign, opts: VectorOptions = {
   const angle = design.model.coordinate === 'angle';
   const vr = design.model.validRange;
   const span = vr.qMax - vr.qMin;
-  const well = design.model.wells[0];
-  const qDefault = (well ? well.q : 0.5 * (vr.qMin + vr.qMax)) + 0.1 * span;
-  const q0 = opts.q0 ?? qDefault, v0 = opts.v0 ?? 0;
+  const q0 = opts.q0 ?? 0.5 * (vr.qMin + vr.qMax) + 0.1 * span, v0 = opts.v0 ?? 0;
   if (!Number.isFinite(q0) || !Number.isFinite(v0)) throw new RangeError(`options.q0/v0: expected finite numbers, got ${q0}, ${v0}`);
 
   const tab = {
