@@ -15,6 +15,7 @@ const verbs: Record<string, { summary: string; load: () => Promise<Verb> }> = {
   design: { summary: 'design an energy-level controller (level hold, or a well hop with --to-well) from an energy model', load: async () => (await import('./cli/design.ts')).run },
   learn: { summary: 'learn the conserved energy H(q, v), its damping and landscape from recordings; write a model file', load: async () => (await import('./cli/learn.ts')).run },
   energy: { summary: 'evaluate a learned energy model at points (q, v) from a CSV file', load: async () => (await import('./cli/energy.ts')).run },
+  export: { summary: 'write a controller design as C99 with a check program, a printable HTML report, plots (SVG, PNG) and JSON', load: async () => (await import('./cli/export.ts')).run },
 };
 
 function usage(): string {
