@@ -59,4 +59,20 @@ describe.skipIf(!chromiumAvailable && !required)('app in a real browser', () => 
     await e.shot('03-energy-map');
     expect(e.consoleErrors.join("\n")).toBe("");
   }, 120_000);
+
+  it('designs a level hold for the learned pendulum and shows its checks and the cautions', async () => {
+    const { page } = e;
+    await page.click('[data-step=controller]');
+    await page.selectOption('select[name=target-kind]', 'amplitude');
+    await page.fill('input[name=target-value]', '1.2');
+    await page.fill('input[name=umax]', '0.4');
+    await page.fill('input[name=rate]', '500');
+    await page.click('[data-testid=design]');
+    await page.waitForSelector('[data-testid=stages]', { timeout: 60_000 });
+    const rows = await page.locator('[data-testid=stages] tbody tr').count();
+    expect(rows).toBe(1);
+    await page.waitForSelector('[data-testid=cautions] li');
+    await e.shot('04-controller');
+    expect(e.consoleErrors.join("\n")).toBe("");
+  }, 90_000);
 });
