@@ -42,8 +42,9 @@ function duffingStates(n: number, runs: number, spread = false): { q: Float64Arr
   return { q, v, runLength: len };
 }
 
-function jsCore(q: Float64Array, v: Float64Array, runs: number): { seconds: number; mu1: number } {
+function jsCore(q: Float64Array, v: Float64Array, runs: number): { seconds: number; cpu: number; mu1: number } {
   const t0 = performance.now();
+  const c0 = process.cpuUsage();
   const len = Math.floor(q.length / runs);
   const pooled = emptyGramSet(terms.length, LAGS);
   for (let r = 0; r < runs; r++) {
@@ -51,7 +52,8 @@ function jsCore(q: Float64Array, v: Float64Array, runs: number): { seconds: numb
     addGramSet(pooled, accumulateGrams(q.subarray(s, e), v.subarray(s, e), terms, LAGS));
   }
   const sol = solveWeak(pooled, DT, 0, null);
-  return { seconds: (performance.now() - t0) / 1000, mu1: sol.mu[0] };
+  const c = process.cpuUsage(c0);
+  return { seconds: (performance.now() - t0) / 1000, cpu: (c.user + c.system) / 1e6, mu1: sol.mu[0] };
 }
 
 const PY = String.raw`
@@ -66,7 +68,7 @@ def theta(qs, vs):
     qp = [np.ones_like(qs)]; vp = [np.ones_like(vs)]
     for k in range(p_deg): qp.append(qp[-1] * qs); vp.append(vp[-1] * vs)
     return np.stack([qp[a] * vp[b] for a, b in pw], axis=1)
-t0 = time.perf_counter()
+t0 = time.perf_counter(); c0 = time.process_time()
 G = np.zeros((P, P)); S = np.zeros(P); D = [np.zeros((P, P)) for _ in lags]; cnt = [0] * len(lags)
 L = max(lags); chunk = 4096; ln = n // runs
 for r in range(runs):
@@ -89,10 +91,10 @@ Lc = np.linalg.cholesky(C * np.outer(d, d))
 Li = np.linalg.inv(Lc)
 W = Li @ (A * np.outer(d, d)) @ Li.T
 w = np.linalg.eigvalsh((W + W.T) / 2)
-print(time.perf_counter() - t0, w[0])
+print(time.perf_counter() - t0, w[0], time.process_time() - c0)
 `;
 
-function numpyCore(q: Float64Array, v: Float64Array, runs: number): { seconds: number; mu1: number } | null {
+function numpyCore(q: Float64Array, v: Float64Array, runs: number): { seconds: number; cpu: number; mu1: number } | null {
   const probe = spawnSync('python3', ['-c', 'import numpy'], { encoding: 'utf8' });
   if (probe.status !== 0) return null;
   const dir = mkdtempSync(join(tmpdir(), 'ergostat-bench-'));
@@ -103,8 +105,8 @@ function numpyCore(q: Float64Array, v: Float64Array, runs: number): { seconds: n
     writeFileSync(file, new Uint8Array(buf.buffer));
     const r = spawnSync('python3', ['-c', PY, file, String(q.length), String(runs), '6', LAGS.join(',')], { encoding: 'utf8', maxBuffer: 1 << 20 });
     if (r.status !== 0) { console.error(r.stderr); return null; }
-    const [sec, mu] = r.stdout.trim().split(/\s+/).map(Number);
-    return { seconds: sec, mu1: mu };
+    const [sec, mu, cpu] = r.stdout.trim().split(/\s+/).map(Number);
+    return { seconds: sec, cpu, mu1: mu };
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
@@ -117,10 +119,13 @@ function numpyCore(q: Float64Array, v: Float64Array, runs: number): { seconds: n
   jsCore(q.subarray(0, 50_000), v.subarray(0, 50_000), 1); // warm-up (JIT)
   const js = jsCore(q, v, RUNS);
   emit('learn.gram+eig.1M.wall', js.seconds, 's', { samples: N, terms: terms.length, lags: LAGS, mu1: js.mu1 });
+  emit('learn.gram+eig.1M.cpu', js.cpu, 's', { note: 'CPU time of this process (the machine may be shared)' });
   const np = numpyCore(q, v, RUNS);
   if (np) {
     emit('learn.gram+eig.1M.numpy.wall', np.seconds, 's', { mu1: np.mu1, relativeDifferenceMu1: Math.abs(np.mu1 - js.mu1) / Math.abs(np.mu1) });
-    emit('learn.gram+eig.1M.ratio_js_over_numpy', js.seconds / np.seconds, 'x');
+    emit('learn.gram+eig.1M.numpy.cpu', np.cpu, 's', { note: 'process CPU time (all BLAS threads)' });
+    emit('learn.gram+eig.1M.ratio_js_over_numpy', js.seconds / np.seconds, 'x', { basis: 'wall time' });
+    emit('learn.gram+eig.1M.ratio_js_over_numpy.cpu', js.cpu / np.cpu, 'x', { basis: 'CPU time' });
   } else {
     emit('learn.gram+eig.1M.numpy.wall', NaN, 's', { note: 'python3 with numpy not available' });
   }
@@ -141,8 +146,11 @@ function numpyCore(q: Float64Array, v: Float64Array, runs: number): { seconds: n
     return { name: `run ${r + 1}`, source: '', t, q: qq };
   });
   const t0 = performance.now();
+  const c0 = process.cpuUsage();
   const m = learnEnergy({ coordinate: 'linear', runs });
+  const c = process.cpuUsage(c0);
   emit('learn.pipeline.1M.wall', (performance.now() - t0) / 1000, 's', { status: m.status, formula: m.formula, halfWindow: m.metrics.halfWindow });
+  emit('learn.pipeline.1M.cpu', (c.user + c.system) / 1e6, 's');
   emit('learn.peak_rss.after_1M_pipeline', peakMB(), 'MB');
 }
 {
@@ -150,5 +158,6 @@ function numpyCore(q: Float64Array, v: Float64Array, runs: number): { seconds: n
   const { q, v } = duffingStates(N, RUNS);
   const js = jsCore(q, v, RUNS);
   emit('learn.gram+eig.10M.wall', js.seconds, 's', { samples: N, terms: terms.length, mu1: js.mu1 });
+  emit('learn.gram+eig.10M.cpu', js.cpu, 's');
   emit('learn.peak_rss.after_10M_core', peakMB(), 'MB', { note: 'process peak, includes the 160 MB of simulated states' });
 }

@@ -47,6 +47,24 @@ export interface LearnOptions {
   lagSets?: number[][];
   /** Savitzky–Golay polynomial order (default 6). */
   savgolOrder?: number;
+  /** Called with the fraction done (0..1) and the stage, e.g. for a worker's progress messages. */
+  onProgress?: (fraction: number, stage: string) => void;
+}
+
+/** Checks the options once, naming the bad one. */
+function checkOptions(o: LearnOptions): void {
+  const int = (name: string, v: number | undefined, lo: number, hi: number) => {
+    if (v !== undefined && !(Number.isInteger(v) && v >= lo && v <= hi)) throw new RangeError(`learnEnergy: options.${name} must be an integer in ${lo}..${hi}, got ${v}`);
+  };
+  int('maxDegree', o.maxDegree, 1, 12); int('minDegree', o.minDegree, 1, 12); int('harmonics', o.harmonics, 1, 12); int('savgolOrder', o.savgolOrder, 2, 10);
+  if (o.mass !== undefined && !(o.mass > 0 && Number.isFinite(o.mass))) throw new RangeError(`learnEnergy: options.mass must be a positive number, got ${o.mass}`);
+  if (o.windowFractions !== undefined && (!Array.isArray(o.windowFractions) || o.windowFractions.length === 0 || o.windowFractions.some((f) => !(f > 0 && f < 1)))) {
+    throw new RangeError('learnEnergy: options.windowFractions must be a non-empty array of fractions of the period in (0, 1)');
+  }
+  if (o.lagSets !== undefined && (!Array.isArray(o.lagSets) || o.lagSets.length === 0 || o.lagSets.some((set) => !Array.isArray(set) || set.length === 0 || set.some((f) => !(f > 0 && f < 5))))) {
+    throw new RangeError('learnEnergy: options.lagSets must be a non-empty array of non-empty arrays of lags in periods, each in (0, 5)');
+  }
+  if (o.userTerms !== undefined && (!Array.isArray(o.userTerms) || o.userTerms.some((t) => typeof t !== 'string'))) throw new RangeError('learnEnergy: options.userTerms must be an array of formula strings');
 }
 
 /** Thresholds of the verdict (relative non-conservation, spectral gap, damping ratio, signal-to-noise). */
@@ -160,6 +178,7 @@ function deepestWell(terms: Term[], xi: ArrayLike<number>, sign: number, lo: num
 }
 
 export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyModel {
+  checkOptions(opts);
   const prep = prepareRecording(rec);
   const { dt } = prep;
   const angle = rec.coordinate === 'angle';
@@ -170,7 +189,7 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
     extra?.(m);
     return m;
   };
-  if (opts.mass !== undefined && !(opts.mass > 0 && Number.isFinite(opts.mass))) throw new RangeError(`learnEnergy: mass must be a positive number, got ${opts.mass}`);
+  const progress = opts.onProgress ?? (() => {});
   if (prep.free.length === 0) return fail('no-free-runs', 'every run has a non-zero input, so none is a free swing');
   const free = prep.free;
   const minLen = Math.min(...free.map((r) => r.q.length));
@@ -260,7 +279,8 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
     const st = qs.map((q) => { const s = estimateStates(q, dt, m, order); return [s.q, s.v]; });
     return { states: st, grams: segmentsOf(st, 4).map(([q, v]) => accumulateGrams(q, v, terms, lags)) };
   };
-  for (const m of windows) {
+  for (const [wi, m] of windows.entries()) {
+    progress((0.8 * wi) / windows.length, `searching window ${wi + 1} of ${windows.length}`);
     const { states, grams } = gramsFor(m, search.runs, allLags);
     if (!search.subset) segGrams.set(m, grams);
     const pooledAll = sumGramSets(grams, P, allLags);
@@ -318,6 +338,7 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
   const full = solveWeak(pooled, dt, pick.lambda, pick.shift, pick.active);
   const nullDim = Array.from(full.mu).filter((x) => x <= LEARN_LIMITS.muMax).length;
 
+  progress(0.8, 'sparsity and final fit');
   // Sparsity on the held-out Pareto front, then lambda again on the sparse set.
   const sp = sparsify(grams, pooled, dt, pick.lambda, pick.shift, pick.active);
   const states = free.map((r) => { const s = estimateStates(r.q, dt, pick.window, order, true); return { q: s.q, v: s.v, a: s.a! }; });
@@ -412,6 +433,7 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
     } else if (t.b === 0) { vTerms.push(t); vCoef.push(coefficients[j]); }
   });
 
+  progress(0.95, 'damping and verdict');
   const zetaLambda = -lambda / (2 * omegaN);
   const zetaLog = (() => {
     // Log decrement per free run (engine/signal, references.md §2) with the chosen window; median over runs.
@@ -465,6 +487,7 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
     model.landscape = null; model.replay = [];
     model.structure = { separable: false, nonSeparableShare: NaN, massFormula: null, potentialFormula: null };
   }
+  progress(1, 'done');
   return model;
 }
 

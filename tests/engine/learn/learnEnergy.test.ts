@@ -128,5 +128,7 @@ describe('learnEnergy on simulated position-only recordings', () => {
   it('names the run and field for unusable input', () => {
     const rec: Recording = { coordinate: 'linear', runs: [{ name: 'a', source: '', t: Float64Array.from([0, 0.1, 0.3]), q: Float64Array.from([0, 1, 2]) }] };
     expect(() => learnEnergy(rec)).toThrow(/runs\[0\] \(a\)\.t: sampling is not uniform/);
+    expect(() => learnEnergy(rec, { maxDegree: 0 })).toThrow(/options\.maxDegree must be an integer in 1\.\.12, got 0/);
+    expect(() => learnEnergy(rec, { mass: -1 })).toThrow(/options\.mass must be a positive number/);
   });
 });
