@@ -44,8 +44,8 @@ export interface SensorOptions {
  *   a = 1 - exp(-2 pi fc T) (the exact discretisation of 1/(1 + s/(2 pi fc)) for a held input).
  * - 'observer': Luenberger observer on a model q'' = accel(q, v, u): one RK4 step of the model
  *   with the applied u per sample, then the correction q^ += T l1 e, v^ += T l2 e with the
- *   innovation e = y - q^ and l1 = 2 zeta wo, l2 = wo^2 (error poles at -zeta wo +- ..., wo =
- *   2 pi `bandwidthHz`, default 10 Hz, zeta 0.8).
+ *   innovation e = y - q^ and l1 = 2 zeta wo, l2 = wo^2 (error dynamics s^2 + 2 zeta wo s + wo^2,
+ *   wo = 2 pi `bandwidthHz`, default 10 Hz, zeta default 0.8).
  * - 'ideal': the controller sees the true q and v (tests only).
  */
 export type EstimatorOptions =
