@@ -23,7 +23,6 @@ import {
   buildHopPlan, buildRotationPlan, checkCandidate, searchMargin, searchUMax, startGrid, wellAt, wellBounds,
   type FeasibilityProblem, type GridCheck, type HopPlan, type LevelRequest, type SearchResult, type WellBounds,
 } from '../engine/plan/index.ts';
-import type { EstimatorOptions } from '../engine/trial/types.ts';
 import type { EnergyFunction } from '../engine/types.ts';
 import { SAFETY_CAUTIONS } from '../safety.ts';
 import { APP_VERSION } from '../version.ts';
@@ -67,7 +66,6 @@ export interface WellHopOptions {
     search?: boolean | 'u_max' | 'margin';
     /** Relative bracket width at which the searches stop. Default 0.03. */
     relTol?: number;
-    estimator?: EstimatorOptions;
   };
   source?: string;
 }
