@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { ModelFileError, parseModel, serializeModel } from '../../src-main/model/index.ts';
-import { toEnergyFunction, type EnergyModel } from '../../src-main/engine/learn/index.ts';
+import { gradientFormulas, toEnergyFunction, type EnergyModel } from '../../src-main/engine/learn/index.ts';
+import { compileFormula } from '../../src-main/engine/formula/index.ts';
 
 // A hand-written pendulum model: H = 0.5 v^2 - 23.357 cos q + 23.357 (elementary mechanics,
 // g/l = 23.357142857143 from references.md §5), plus a user term with a zero coefficient.
@@ -65,6 +66,19 @@ describe('model file', () => {
   ])('names the field that is wrong (%#)', (edit, message) => {
     expect(() => parseModel(withField(edit), 'bad.json')).toThrow(ModelFileError);
     expect(() => parseModel(withField(edit), 'bad.json')).toThrow(message);
+  });
+
+  it('gives dH/dq and dH/dv as formulas that match the model gradient', () => {
+    // Symbolic derivative (formula package) against the term-wise analytic gradient (library.ts).
+    const m = pendulumModel();
+    const { dHdq, dHdv } = gradientFormulas(m);
+    const fq = compileFormula(dHdq, ['q', 'v']), fv = compileFormula(dHdv, ['q', 'v']);
+    const e = toEnergyFunction(m), g = new Float64Array(2);
+    for (const [q, v] of [[0.4, -1], [2.9, 3.3]]) {
+      e.grad(q, v, g);
+      expect(fq.eval(Float64Array.from([q, v]))).toBeCloseTo(g[0], 9);
+      expect(fv.eval(Float64Array.from([q, v]))).toBeCloseTo(g[1], 9);
+    }
   });
 
   it('refuses text that is not JSON, naming the file', () => {

@@ -1,6 +1,7 @@
 // Energy map: learning the conserved energy H(q, v) from recordings (design.md §2).
 export { learnEnergy, LEARN_LIMITS, type LearnOptions } from './learnEnergy.ts';
 export { toEnergyFunction } from './energyFunction.ts';
+export { gradientFormulas } from './gradientFormulas.ts';
 export { modelEvaluator, termFromSpec, specFromTerm } from './model.ts';
 export type { EnergyModel, TermSpec, Landscape, Well, Barrier, Verdict, VerdictCode, CandidateReport, ParetoPoint, ReplayReport } from './model.ts';
 export { buildLibrary, termLabel, formulaOf, type Term, type LibraryOptions } from './library.ts';
