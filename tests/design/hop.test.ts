@@ -10,6 +10,7 @@ import { readDesign } from '../../src-main/design/validate.ts';
 import { builtinPlant, compilePlant } from '../../src-main/engine/plant/index.ts';
 import { startGrid, wellBounds } from '../../src-main/engine/plan/index.ts';
 import { simulate } from '../../src-main/engine/trial/simulate.ts';
+import { Pcg32 } from '../../src-main/engine/signal/random.ts';
 import type { TrialPlant } from '../../src-main/engine/trial/types.ts';
 import type { ControllerDesign } from '../../src-main/design/types.ts';
 import { analyticModel, doubleWellModel, pendulumModel } from '../engine/plan/fixtures.ts';
@@ -64,6 +65,24 @@ describe('double-well Duffing hop (H = v^2/2 - a q^2/2 + b q^4/4, a = b = 1)', (
       expect(n).toBe(9);
     });
   }
+
+  it('still hops with a quantized, noisy sensor, one sample of delay and the filtered-difference velocity', () => {
+    const design = designWellHop(model, { ...opts, sampleRateHz: 200, delaySamples: 1, fromWell: 1, toWell: 2 });
+    expect(design.checks.find((c) => c.name === 'feasibility')).toMatchObject({ ok: true });
+    for (const [q0, v0, seed] of [[-1.3, 0, 7], [-0.7, 0.3, 8]]) {
+      const sup = controllerFromDesign(design);
+      const rng = new Pcg32(seed, 1);
+      const r = simulate({
+        plant, energy: sup.energy, controller: sup, q0, v0, duration: 40, rateHz: 200, delaySamples: 1,
+        sensor: { step: 1e-3, noiseStd: 3e-4 }, random: () => rng.uniform(), // default estimator: filtered difference, 10 Hz
+      });
+      const ch = stageChanges(r.trace);
+      expect(ch.map((c) => [c.from, c.to])).toEqual([[1, 2]]);
+      expect(ch[0].q).toBeGreaterThan(0);
+      expect(r.final.q).toBeGreaterThan(0.8);
+      expect(trueH(r.final.q, r.final.v)).toBeLessThan(0.02 * 0.25);
+    }
+  });
 
   it('ends at a requested level (an energy) inside the target well', () => {
     const design = designWellHop(model, { ...opts, fromWell: 1, toWell: 2, level: { kind: 'energy', energy: 0.1 }, feasibility: false });
