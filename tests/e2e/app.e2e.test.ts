@@ -2,6 +2,9 @@
 // operation table served on 127.0.0.1. CI installs Chromium; elsewhere the suite is skipped
 // with a message when /usr/bin/chromium is missing.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mkdtempSync, existsSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { chromiumAvailable, startE2E, type E2E } from './harness.ts';
 
 const required = process.env.CI === 'true';
@@ -75,4 +78,23 @@ describe.skipIf(!chromiumAvailable && !required)('app in a real browser', () => 
     await e.shot('04-controller');
     expect(e.consoleErrors.join("\n")).toBe("");
   }, 90_000);
+
+  it('saves the project, starts a new one and reopens the saved file', async () => {
+    const { page } = e;
+    const file = join(mkdtempSync(join(tmpdir(), 'ergostat-e2e-')), 'bench-rig.ergostat');
+    page.on('dialog', (d) => void d.accept());
+    await page.fill('input[name=project-path]', file);
+    await page.click('[data-testid=save-project-as]');
+    await page.waitForSelector(`[data-testid=project-bar] >> text="${file}"`);
+    expect(existsSync(file)).toBe(true);
+    await page.click('text=New');
+    await page.click('[data-step=recordings]');
+    expect(await page.locator('[data-recording]').count()).toBe(0);
+    await page.fill('input[name=project-path]', file);
+    await page.click('[data-testid=open-project]');
+    await page.waitForSelector('[data-recording="larkspur-pendulum"]');
+    await page.waitForSelector('[data-recording="bench-swing"]');
+    await e.shot('05-reopened');
+    expect(e.consoleErrors.join("\n")).toBe("");
+  }, 60_000);
 });
