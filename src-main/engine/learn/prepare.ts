@@ -46,10 +46,11 @@ export function prepareRecording(rec: Recording): Prepared {
       if (!Number.isFinite(run.q[i])) throw new RangeError(`${where}.q[${i}]: not a finite number`);
       if (run.u && !Number.isFinite(run.u[i])) throw new RangeError(`${where}.u[${i}]: not a finite number`);
     }
-    const q = rec.coordinate === 'angle' ? unwrapAngles(run.q) : Float64Array.from(run.q);
+    // The caller's arrays are only read, never written, so displacements are not copied (memory on big recordings).
+    const q = rec.coordinate === 'angle' ? unwrapAngles(run.q) : run.q;
     let isForced = false;
     if (run.u) for (let i = 0; i < n; i++) if (run.u[i] !== 0) { isForced = true; break; }
-    const pr: PreparedRun = { name: run.name, q, u: run.u ? Float64Array.from(run.u) : null, forced: isForced };
+    const pr: PreparedRun = { name: run.name, q, u: run.u ?? null, forced: isForced };
     (isForced ? forced : free).push(pr);
     samples += n;
   });

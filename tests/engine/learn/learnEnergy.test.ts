@@ -21,7 +21,9 @@ describe('learnEnergy on simulated position-only recordings', () => {
     const Htrue = (q: number, v: number) => v * v / 2 - a * q * q / 2 + b * q ** 4 / 4;
     const inits: [number, number][] = [[2.5, 0], [-1.2, 0.5], [0.2, 2.2], [3, 0], [-2.8, 0.3], [1.6, -0.4]];
     const sim = simulate({ accel: (q, v) => a * q - b * q ** 3 - c * v, inits, dt: 0.01, seconds: 30, noise: 0.003, bits: 14, seed: 11 });
+    const before = sim.recording.runs.map((r) => Float64Array.from(r.q));
     const m = learnEnergy(sim.recording);
+    sim.recording.runs.forEach((r, k) => expect(r.q).toEqual(before[k])); // inputs are never mutated
     expect(m.status).toBe('ok');
     const e = modelEvaluator(m);
     const hMax = Math.max(...inits.map(([q, v]) => Htrue(q, v)));
