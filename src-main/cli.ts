@@ -13,6 +13,7 @@ const verbs: Record<string, { summary: string; load: () => Promise<Verb> }> = {
   demo: { summary: 'write the demo rigs\' recordings and run the pipeline on them', load: async () => (await import('./cli/demo.ts')).run },
   check: { summary: 'import CSV recordings and report sampling, noise, Savitzky-Golay window and damping per run', load: async () => (await import('./cli/check.ts')).run },
   design: { summary: 'design an energy-level controller (level hold, or a well hop with --to-well) from an energy model', load: async () => (await import('./cli/design.ts')).run },
+  trial: { summary: 'simulate a controller design in closed loop (model or plant.json, sensor, Monte Carlo mismatch) with baselines; write trial.csv', load: async () => (await import('./cli/trial.ts')).run },
   learn: { summary: 'learn the conserved energy H(q, v), its damping and landscape from recordings; write a model file', load: async () => (await import('./cli/learn.ts')).run },
   energy: { summary: 'evaluate a learned energy model at points (q, v) from a CSV file', load: async () => (await import('./cli/energy.ts')).run },
   export: { summary: 'write a controller design as C99 with a check program, a printable HTML report, plots (SVG, PNG) and JSON', load: async () => (await import('./cli/export.ts')).run },

@@ -11,7 +11,7 @@
 // - <b^2> on the orbit at H* by meanSquareInputGain on the model's own undamped equations of
 //   motion (motion.ts), for the loss compensation u_ff = -lambda H* b / <b^2>.
 // - Default weights (our choice, Bryson's rule): R = 1, Q = k^2 with k = sqrt(Q/R) = u_ref / z_sat:
-//   the law asks for u_ref at an energy error z_sat = 5% of the level above the well bottom (of the
+//   the law asks for u_ref at an energy error z_sat = 15% of the level above the well bottom (of the
 //   known depth of the well for a target at rest). u_ref = u_max when given, otherwise the input
 //   that would move the energy by that level in one swing period T at the orbit's RMS authority,
 //   E / (T sqrt(<b^2>)). At rest (no orbit) the orbit halfway up the known range of the well is
@@ -67,7 +67,7 @@ export interface LevelHoldOptions {
 }
 
 /** The default law reaches u_ref (u_max when given) at an energy error of this share of the level above the well bottom. */
-export const SATURATION_BAND = 0.05;
+export const SATURATION_BAND = 0.15;
 
 const fmt = (x: number) => (Number.isFinite(x) ? Number(x.toPrecision(4)).toString() : String(x));
 
