@@ -1,6 +1,7 @@
 // Test helper: writes exported C files into a fresh temp dir, compiles them with the system C
 // compiler (cc -std=c99 -O2 -Wall -Wextra -Werror *.c -lm) and runs the check program.
 import { execFileSync, spawnSync } from 'node:child_process';
+import { expect } from 'vitest';
 import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -30,4 +31,13 @@ export function compileAndRun(files: { name: string; text: string }[]): CheckRun
 export function worstErrors(stdout: string): { u: number; H: number } {
   const m = /worst relative error: u ([^ ]+) .*H ([^ ]+) /.exec(stdout);
   return m ? { u: Number(m[1]), H: Number(m[2]) } : { u: NaN, H: NaN };
+}
+
+/** The files with one pattern replaced in one file (the pattern must occur). */
+export function perturb(files: { name: string; text: string }[], file: string, pattern: RegExp, replace: string) {
+  return files.map((f) => {
+    if (f.name !== file) return f;
+    expect(pattern.test(f.text)).toBe(true);
+    return { name: f.name, text: f.text.replace(pattern, replace) };
+  });
 }
