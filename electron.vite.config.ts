@@ -11,7 +11,7 @@ export default defineConfig({
     build: {
       outDir: 'out/main',
       // Engine jobs run in worker threads started from job-worker.js beside the main bundle.
-      rollupOptions: { input: { index: resolve(root, 'electron/main.ts'), 'job-worker': resolve(root, 'src-main/jobs/job-worker.ts') } },
+      rollupOptions: { input: { index: resolve(root, 'electron/main.ts'), 'job-worker': resolve(root, 'src-main/jobs/job-worker.ts'), 'trial-worker': resolve(root, 'src-main/trial-workers/worker.ts') } },
     },
   },
   preload: {

@@ -4,6 +4,8 @@
 // stored by index, so the outcome depends only on the seed, never on k or on scheduling.
 // Cancellation through an AbortSignal terminates every worker (Worker.terminate stops running
 // JavaScript mid-trial) and waits for their exit before the promise settles.
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { buildTrial, type TrialOutcome, type TrialSpec } from '../engine/trial/trial-spec.ts';
 import type { RunRequest, WorkerReply, WorkerSetup } from './protocol.ts';
@@ -51,7 +53,10 @@ export interface MonteCarloResult {
   diagnostics: { workers: number; wallMs: number; workersStarted: number; workersExited: number };
 }
 
-const ENTRY = new URL('./worker-entry.mjs', import.meta.url);
+// From source the worker starts from worker-entry.mjs (installs the tsx loader); in the packaged
+// app electron-vite builds trial-worker.js beside the main bundle (electron.vite.config.ts).
+const BUNDLED = new URL('./trial-worker.js', import.meta.url);
+const ENTRY = existsSync(fileURLToPath(BUNDLED)) ? BUNDLED : new URL('./worker-entry.mjs', import.meta.url);
 
 export function runMonteCarlo(spec: MonteCarloSpec, options: MonteCarloOptions = {}): Promise<MonteCarloResult> {
   if (typeof spec !== 'object' || spec === null) throw new TypeError('monteCarlo: spec must be an object {trial, runs, mismatch, seed}');
