@@ -149,6 +149,44 @@ describe('asymmetric three-well plant written as a formula', () => {
   });
 });
 
+describe('two wells on a circle (angle coordinate, periodic copies)', () => {
+  // V(q) = (1 - cos 2q) + 0.3 (1 - cos q), unit inertia: wells at 0 (V = 0) and pi (V = 0.6), barriers where
+  // cos q = -0.075 (V' = sin q (4 cos q + 0.3) = 0), V = 2 - 2(0.075)^2 + 0.3 * 1.075 (trigonometry).
+  const model = analyticModel({
+    coordinate: 'angle', terms: [{ kind: 'mono', a: 0, b: 2 }, { kind: 'trig', fn: 'cos', k: 2, b: 0 }, { kind: 'trig', fn: 'cos', k: 1, b: 0 }],
+    coefficients: [0.5, -1, -0.3], offset: 1.3, lambda: -0.03, range: [-Math.PI, Math.PI],
+  });
+  const plant = compilePlant({ coordinate: 'angle', acceleration: '-2*sin(2*q) - 0.3*sin(q) - c*v + u', params: { c: 0.03 } }, 'two-well circle');
+  const qb = Math.acos(-0.075), Vb = 2 - 2 * 0.075 ** 2 + 0.3 * 1.075;
+
+  it('hops from the well at 0 into a copy of the other well at +-pi, over whichever barrier the rig meets', () => {
+    const land = model.landscape!;
+    expect(land.wells.map((w) => w.q)).toEqual([expect.closeTo(-Math.PI, 6), expect.closeTo(0, 6)]);
+    expect(land.barriers.map((b) => b.V)).toEqual([expect.closeTo(Vb, 9), expect.closeTo(Vb, 9)]);
+    const design = designWellHop(model, { from: { q: 0.3, v: 0 }, toWell: 1, uMax: 0.5, sampleRateHz: 200, feasibility: { levels: [0.3, 0.7] } });
+    expect(design.checks.find((c) => c.name === 'feasibility')).toMatchObject({ ok: true });
+    // On the wrapped angle, entering the other well over either barrier (the rig may leave its well either way).
+    const qs = qb + 0.1 * (Math.PI - qb);
+    expect(design.transitions.map((t) => t.when)).toEqual([
+      { qAbove: expect.closeTo(qs, 6), qBelow: expect.closeTo(Math.PI, 6), vSign: 1, wrapped: true },
+      { qAbove: expect.closeTo(-Math.PI, 6), qBelow: expect.closeTo(-qs, 6), vSign: -1, wrapped: true },
+    ]);
+    const sides = new Set<number>();
+    for (const [q0, v0] of [[0.3, 0], [-0.3, 0], [0, 1.2], [0, -1.2]]) {
+      const r = trial(design, plant, q0, v0, 40);
+      const ch = stageChanges(r.trace);
+      expect(ch.map((c) => [c.from, c.to])).toEqual([[1, 2]]);
+      expect(Math.abs(ch[0].q)).toBeGreaterThan(qb); // past a barrier (the rig starts in [-pi, pi), so unwrapped = wrapped here)
+      expect(Math.abs(ch[0].q)).toBeLessThan(Math.PI);
+      expect(Math.sign(ch[0].v)).toBe(Math.sign(ch[0].q)); // heading into the well
+      sides.add(Math.sign(ch[0].q));
+      expect(Math.cos(r.final.q)).toBeLessThan(Math.cos(0.2 - Math.PI)); // within 0.2 rad of a copy of q = pi
+      expect(0.5 * r.final.v ** 2 + (1 - Math.cos(2 * r.final.q)) + 0.3 * (1 - Math.cos(r.final.q)) - 0.6).toBeLessThan(0.02 * (Vb - 0.6));
+    }
+    expect(sides).toEqual(new Set([1, -1])); // both ways round occurred
+  });
+});
+
 describe('pendulum: rest -> rotation at a given speed -> rest, under a torque limit', () => {
   // m = 0.5 kg, l = 0.42 m, c = 0.05 1/s (the built-in pendulum); torque limit 0.3 N m, 15% of m g l:
   // the swing-up needs several swings (Astrom & Furuta 2000, references.md §6: one swing is not enough below n = 4/3).

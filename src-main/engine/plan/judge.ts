@@ -1,13 +1,19 @@
 // Judges one closed-loop run of a plan, sample by sample (design.md §2 "Wells and hops": stage 2
 // must bring the energy below the barrier before the state can return to it). For each hop leg:
 // the switch into its settle stage is recorded with whether q was past the last barrier inside
-// the target well; from then on the run fails if q leaves the target well ('returned' over the
+// the target well (angles: inside whichever copy of the target well it entered, from either side); from then on the run fails if q leaves the target well ('returned' over the
 // barrier it came from, 'overshot' over the far one) before H drops below the well's lowest
 // barrier (captured). After the last leg is captured the run is 'settled' once |H - H*| stays
 // within the plan's band for `settleTime`. Rotation plans: the rig must go over the top
 // ('no-rotation' otherwise); with turns, stage 2 must capture it in a copy of the start well
 // and settle it; without, the rotation level must settle.
-import type { HopPlan } from './types.ts';
+import type { HopPlan, WellBounds } from './types.ts';
+
+const TWO_PI = 2 * Math.PI;
+
+function shifted(w: WellBounds, d: number): WellBounds {
+  return d === 0 ? w : { ...w, q: w.q + d, left: w.left && { q: w.left.q + d, V: w.left.V }, right: w.right && { q: w.right.q + d, V: w.right.V } };
+}
 import { insideBasin } from './well-bounds.ts';
 
 export type RunStatus =
@@ -49,23 +55,34 @@ function judgeHop(plan: HopPlan, H: (q: number, v: number) => number, settleTime
   let status: RunStatus | null = null;
   const switches: SwitchRecord[] = [];
   const captureTimes: number[] = [];
+  // The target well's copy this leg entered (angles: the copy nearest the switch) and the direction it came in.
+  let target = legs[0].target;
+  let dir: number = legs[0].direction;
   return {
     observe(t, q, v, stage) {
       const leg = legs[h];
       if (phase === 'raise') {
         if (stage !== plan.entryStages[h]) return true;
         const b = leg.crossed[leg.crossed.length - 1];
-        switches.push({ leg: h + 1, t, q, v, inside: insideBasin(leg.target, q) && (q - b.q) * leg.direction > 0 });
+        if (plan.periodic) {
+          target = shifted(leg.target, TWO_PI * Math.round((q - leg.target.q) / TWO_PI));
+          dir = v > 0 ? 1 : -1;
+          switches.push({ leg: h + 1, t, q, v, inside: insideBasin(target, q) });
+        } else {
+          target = leg.target;
+          dir = leg.direction;
+          switches.push({ leg: h + 1, t, q, v, inside: insideBasin(target, q) && (q - b.q) * leg.direction > 0 });
+        }
         phase = 'bleed';
       }
       const E = H(q, v);
-      if (!insideBasin(leg.target, q)) {
-        const back = leg.direction > 0 ? leg.target.left !== null && q <= leg.target.left.q : leg.target.right !== null && q >= leg.target.right.q;
+      if (!insideBasin(target, q)) {
+        const back = dir > 0 ? target.left !== null && q <= target.left.q : target.right !== null && q >= target.right.q;
         status = phase === 'settle' ? 'escaped' : back ? 'returned' : 'overshot';
         return false;
       }
       if (phase === 'bleed') {
-        if (E < leg.target.rim) {
+        if (E < target.rim) {
           captureTimes.push(t);
           if (h < legs.length - 1) { h++; phase = 'raise'; } else { phase = 'settle'; since = NaN; }
         }

@@ -6,6 +6,10 @@
 //   stage 2h "settle": the requested level (last leg) or the well bottom (intermediate legs);
 //   for intermediate legs, switch 2h -> 2h+1 once captured: q between the well's barriers and
 //     H below its lowest barrier by `captureBand` of the well's depth.
+// Angles: the rig may leave its well over either barrier and may meet any copy of the target
+// well, so hop conditions are stated on the wrapped angle (`wrapped: true`) and each raise stage
+// has two switches, one entering the target well from each side. A wrapped interval that would
+// straddle +-pi is cut there and the longer piece kept (the rig passes through both pieces).
 // Rotation (angles): stage 1 holds the rotation energy; with `turns`, stage 2 brings the rig to
 // rest once the unwrapped angle has gone `turns` revolutions either way from the start well.
 import type { HopPlan, Landscape, PlanStage, PlanTransition } from './types.ts';
@@ -39,6 +43,15 @@ export interface RotationPlanOptions {
 }
 
 const fmt = (x: number) => Number(x.toPrecision(6)).toString();
+const TWO_PI = 2 * Math.PI;
+
+/** {qAbove, qBelow} on the wrapped angle for the unwrapped interval (lo, hi), hi - lo < 2 pi. */
+function wrappedInterval(lo: number, hi: number): { qAbove: number; qBelow: number } {
+  const a = lo - TWO_PI * Math.floor((lo + Math.PI) / TWO_PI);
+  const b = a + (hi - lo);
+  if (b <= Math.PI) return { qAbove: a, qBelow: b };
+  return Math.PI - a >= b - TWO_PI + Math.PI ? { qAbove: a, qBelow: Math.PI } : { qAbove: -Math.PI, qBelow: b - TWO_PI };
+}
 
 function fraction(x: unknown, name: string, def: number, lo: number, hi: number): number {
   if (x === undefined) return def;
@@ -63,12 +76,27 @@ export function buildHopPlan(land: Landscape, H: (q: number, v: number) => numbe
     const raiseTo = leg.highest + margin * (leg.highest - leg.start.V);
     stages.push({ index: raise, name: `raise over the barrier into well ${leg.to}`, target: { kind: 'energy', energy: raiseTo } });
     const b = leg.crossed[leg.crossed.length - 1];
-    const qs = b.q + sw * (leg.target.q - b.q);
-    transitions.push({
-      from: raise, to: settleStage,
-      when: leg.direction > 0 ? { qAbove: qs, vSign: 1 } : { qBelow: qs, vSign: -1 },
-      reason: `past the barrier at q = ${fmt(b.q)} (H = ${fmt(b.V)}), heading into well ${leg.to}`,
-    });
+    const t = leg.target;
+    if (!land.periodic) {
+      const qs = b.q + sw * (t.q - b.q);
+      transitions.push({
+        from: raise, to: settleStage,
+        when: leg.direction > 0 ? { qAbove: qs, vSign: 1 } : { qBelow: qs, vSign: -1 },
+        reason: `past the barrier at q = ${fmt(b.q)} (H = ${fmt(b.V)}), heading into well ${leg.to}`,
+      });
+    } else {
+      // Both sides, the planned one first: entering over the left barrier moving +q, over the right one moving -q.
+      const sides = leg.direction > 0 ? [1, -1] as const : [-1, 1] as const;
+      for (const side of sides) {
+        const edge = side > 0 ? t.left! : t.right!;
+        const qs = edge.q + sw * (t.q - edge.q);
+        const range = side > 0 ? wrappedInterval(qs, t.q) : wrappedInterval(t.q, qs);
+        transitions.push({
+          from: raise, to: settleStage, when: { ...range, vSign: side, wrapped: true },
+          reason: `past the barrier at q = ${fmt(edge.q)} (H = ${fmt(edge.V)}, wrapped angle), heading into well ${leg.to} ${side > 0 ? 'in +q' : 'in -q'}`,
+        });
+      }
+    }
     entryStages.push(settleStage);
     const isLast = h === legs.length - 1;
     stages.push({
@@ -77,16 +105,18 @@ export function buildHopPlan(land: Landscape, H: (q: number, v: number) => numbe
       target: isLast ? final : { kind: 'at-rest', well: leg.to, energy: leg.target.V },
     });
     if (!isLast) {
-      const t = leg.target;
       const when: PlanTransition['when'] = { energyBelow: t.rim - band * (t.rim - t.V) };
-      if (t.left) when.qAbove = t.left.q;
-      if (t.right) when.qBelow = t.right.q;
+      if (land.periodic) Object.assign(when, wrappedInterval(t.left!.q, t.right!.q), { wrapped: true });
+      else {
+        if (t.left) when.qAbove = t.left.q;
+        if (t.right) when.qBelow = t.right.q;
+      }
       transitions.push({ from: settleStage, to: settleStage + 1, when, reason: `captured in well ${leg.to} (energy below its lowest barrier ${fmt(t.rim)} by ${band * 100}% of its depth)` });
     }
   });
   const depth = Number.isFinite(last.target.rim) ? last.target.rim - last.target.V : last.highest - last.target.V;
   return {
-    kind: 'hop', stages, transitions, initialStage: 1, legs, entryStages,
+    kind: 'hop', periodic: land.periodic, stages, transitions, initialStage: 1, legs, entryStages,
     finalEnergy: final.energy, settleBand: settle * depth, rotation: null,
   };
 }
@@ -110,7 +140,7 @@ export function buildRotationPlan(land: Landscape, H: (q: number, v: number) => 
   const finalEnergy = turns === null ? target.energy : start.V;
   const scale = turns === null ? target.energy - start.V : top.V - start.V;
   return {
-    kind: 'rotation', stages, transitions, initialStage: 1, legs: [], entryStages: [],
+    kind: 'rotation', periodic: true, stages, transitions, initialStage: 1, legs: [], entryStages: [],
     finalEnergy, settleBand: settle * scale,
     rotation: { start, energy: target.energy, speed: o.speed, turns, top },
   };

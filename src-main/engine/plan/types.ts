@@ -71,6 +71,8 @@ export interface HopLeg {
 /** A whole plan: the stages and transitions, and the geometry the checks need. */
 export interface HopPlan {
   kind: 'hop' | 'rotation';
+  /** Angle coordinate: hop conditions are on the wrapped angle, so every periodic copy of a well counts. */
+  periodic: boolean;
   stages: PlanStage[];
   transitions: PlanTransition[];
   initialStage: number;

@@ -48,6 +48,26 @@ describe('buildHopPlan', () => {
   });
 });
 
+describe('buildHopPlan on a circle', () => {
+  it('states the switches on the wrapped angle, one per side of the target well', () => {
+    const circle: Landscape = {
+      qMin: -Math.PI, qMax: Math.PI, periodic: true,
+      wells: [{ index: 1, q: -1.5, V: 0 }, { index: 2, q: 1.5, V: 0.2 }],
+      barriers: [{ q: 0, V: 1, between: [1, 2] }, { q: 3, V: 2, between: [2, 1] }],
+    };
+    const p = buildHopPlan(circle, H, { from: 1, to: 2, switchFraction: 0.2 });
+    expect(p.periodic).toBe(true);
+    // +q side: from the barrier at 0, 20% of the way to 1.5; -q side: from the barrier at 3, 20% of the way back to 1.5.
+    expect(p.transitions.map((t) => t.when)).toEqual([
+      { qAbove: expect.closeTo(0.3, 12), qBelow: expect.closeTo(1.5, 12), vSign: 1, wrapped: true },
+      { qAbove: expect.closeTo(1.5, 12), qBelow: expect.closeTo(2.7, 12), vSign: -1, wrapped: true },
+    ]);
+    const q = buildHopPlan(circle, H, { from: 2, to: 1, direction: 1, switchFraction: 0.2 });
+    // Well 1 entered from its left over the barrier at 3 - 2 pi: the interval (3 - 2 pi + 0.3, -1.5), wrapped.
+    expect(q.transitions[0].when).toEqual({ qAbove: expect.closeTo(3 - 2 * Math.PI + 0.2 * (-1.5 - (3 - 2 * Math.PI)), 12), qBelow: expect.closeTo(-1.5, 12), vSign: 1, wrapped: true });
+  });
+});
+
 describe('buildRotationPlan', () => {
   it('holds the rotation energy, then stops after the given turns either way', () => {
     const m = 0.5, l = 0.42, g = 9.81, I = m * l * l;
