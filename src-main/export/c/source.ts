@@ -124,7 +124,8 @@ export function bodySource(design: ControllerDesign, name: string, info: SourceI
   L.push(`#include "${name}.h"`);
   L.push('');
   L.push('/* Constants of the design (17 significant digits). */');
-  L.push(`static const double ${p}_DT = ${cDouble(1 / design.sampleRateHz)}; /* sample period, s */`);
+  // The period is used by the rate limit and the integrator only (an unused static const is an error under -Werror).
+  if (law.rateMax !== null || law.integral) L.push(`static const double ${p}_DT = ${cDouble(1 / design.sampleRateHz)}; /* sample period, s */`);
   L.push(`static const double ${p}_G = ${cDouble(design.input.gain)}; /* input gain g */`);
   L.push(`static const double ${p}_Q = ${cDouble(law.Q)};`);
   L.push(`static const double ${p}_R = ${cDouble(law.R)};`);

@@ -11,7 +11,8 @@ describe('exportC energy code', () => {
     const energy = '0.5*v^2 + 0.3*q^2 + 0.01*abs(q)^3 + 0.001*min(q, 1, v)*max(v, -1) + 0.002*sign(q)*q^2'
       + ' + 0.05*tanh(q)*q + 0.01*exp(-q^2) + 0.001*log(1 + q^2) + 0.001*sqrt(1 + v^2) + 0.001*tan(q/4)'
       + ' + 0.001*2^(0.1*q) + 0.01*(2 + q^2)^-1 + 0.001*(1 + q^2)^2.5 + 0.0001*(pi/2 + sqrt(2))*q';
-    const d = duffingDesign({ model: { ...duffingDesign().model, energy, acceleration: null } });
+    // No limits at all: the generated code must then compile without the limit constants and the period.
+    const d = duffingDesign({ model: { ...duffingDesign().model, energy, acceleration: null }, law: { ...duffingDesign().law, uMax: null, rateMax: null } });
     const r = exportC(d, 'funcs', { vectors: { samples: 1200 } });
     expect(r.vectors.source).toBe('sweep');
     const body = r.files[1].text;
