@@ -116,8 +116,24 @@ function sensorOptions(s: Settings, design: ControllerDesign): SensorOptions {
   return o;
 }
 
-function row(name: string, status: string, message: string, m: TrialMetrics | null) {
-  return { name, status, message, converged: m?.converged ?? false, metrics: m };
+/**
+ * The well whose basin holds the middle of the final swing (linear rigs with wells: the basin of
+ * well k runs between the barriers on either side of it); null for angles or without wells. The
+ * energy metrics cannot tell wells of equal depth apart, so the JSON line reports this beside them.
+ */
+function finalWell(design: ControllerDesign, m: TrialMetrics | null): number | null {
+  if (m === null || design.model.coordinate !== 'linear' || design.model.wells.length === 0) return null;
+  const q = 0.5 * (m.qMin + m.qMax);
+  for (const w of design.model.wells) {
+    const left = design.model.barriers.filter((b) => b.q < w.q).reduce((a, b) => Math.max(a, b.q), -Infinity);
+    const right = design.model.barriers.filter((b) => b.q > w.q).reduce((a, b) => Math.min(a, b.q), Infinity);
+    if (q > left && q < right) return w.index;
+  }
+  return null;
+}
+
+function row(design: ControllerDesign, name: string, status: string, message: string, m: TrialMetrics | null) {
+  return { name, status, message, converged: m?.converged ?? false, finalWell: finalWell(design, m), metrics: m };
 }
 
 export const run: Verb = async (argv, io) => {
@@ -173,7 +189,7 @@ export const run: Verb = async (argv, io) => {
   const baselines = compareWithBaselines({
     sim, makeRandom: rng, metrics: metricsOpt, gain: Math.sqrt(law.Q / law.R), uMax: law.uMax ?? undefined,
     inputGain: design.input.gain, eps: law.eps, equilibrium: restWell?.q, model: modelPlant,
-  }).map((b) => row(b.name, b.status, b.message, b.metrics));
+  }).map((b) => row(design, b.name, b.status, b.message, b.metrics));
 
   // Monte Carlo.
   let monteCarlo: unknown = null;
@@ -234,7 +250,8 @@ export const run: Verb = async (argv, io) => {
 
   io.out(JSON.stringify({
     kind: 'trial', design: designPath, plant: s.plantPath ?? 'model', status: r.status, message: r.message,
-    target: { kind: target.kind, energy: target.energy }, converged: metrics?.converged ?? false, metrics,
+    target: { kind: target.kind, energy: target.energy, well: target.kind === 'at-rest' ? target.well : undefined },
+    converged: metrics?.converged ?? false, finalWell: finalWell(design, metrics), metrics,
     switches: design.transitions.length > 0 ? switches : undefined,
     baselines, monteCarlo,
   }));

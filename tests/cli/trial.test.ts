@@ -78,6 +78,9 @@ describe('ergostat trial', () => {
     expect(j.baselines.map((b: { name: string }) => b.name)).toEqual(['lqr', 'energy-pump', 'open-loop']);
     expect(j.baselines[0].status).toBe('ok');
     expect(j.metrics.target).toBe(0);
+    expect(j.target.well).toBe(2);
+    // Started at q = 1.3 in well 2 (right of the barrier at 0), it must end there.
+    expect(j.finalWell).toBe(2);
     // At rest the band is set by the sensor's energy resolution or 2% of 0: the final energy is small against the start's.
     expect(j.metrics.finalEnergy).toBeLessThan(0.1 * (1.3 ** 2 - 1) ** 2 / 4);
   });
