@@ -87,6 +87,15 @@ describe('ergostat design', () => {
     expect(coef.err).toMatch(/bad-coef\.json: coefficients: expected 2 numbers/);
   });
 
+  it('dispatches --to-well to the well-hop designer and writes a staged design', async () => {
+    const r = await runCli(['design', p('duffing.json'), '--to-well', '2', '--umax', '0.3', '--out', p('hop.json')]);
+    expect(r.code, r.err).toBe(0);
+    const d = readDesign(JSON.parse(readFileSync(p('hop.json'), 'utf8')), 'hop.json');
+    expect(d.kind).toBe('well-hop');
+    expect(d.stages.length).toBeGreaterThan(1);
+    expect(r.out).toMatch(/design: well-hop/);
+  });
+
   it('rejects bad usage with exit 2', async () => {
     const cases: [string[], RegExp][] = [
       [[p('duffing.json'), '--out', p('x.json')], /give exactly one target/],
