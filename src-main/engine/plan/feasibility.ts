@@ -63,6 +63,8 @@ export function checkCandidate(p: FeasibilityProblem, uMax: number, margin: numb
 }
 
 export interface SearchResult {
+  status: 'found' | 'not-found';
+  message: string;
   /** Smallest verified-feasible u_max, or largest verified-feasible margin; null when none was found. */
   found: number | null;
   /** Largest infeasible u_max (or smallest infeasible margin) seen. */
@@ -91,12 +93,14 @@ export function searchUMax(p: FeasibilityProblem, uMax: number, margin: number, 
     if (ok(u)) { hi = u; break; }
     lo = u;
   }
-  if (hi !== hi) return { found: null, bound: lo, simulations: sims, candidates: cands, method: 'doubling' };
+  if (hi !== hi) {
+    return { status: 'not-found', message: `no u_max up to ${lo} is feasible (${sims} simulations)`, found: null, bound: lo, simulations: sims, candidates: cands, method: 'doubling' };
+  }
   while (hi / lo - 1 > relTol && cands < maxC) {
     const mid = Math.sqrt(lo * hi);
     if (ok(mid)) hi = mid; else lo = mid;
   }
-  return { found: hi, bound: lo, simulations: sims, candidates: cands, method: 'doubling, then bisection' };
+  return { status: 'found', message: `feasible from u_max = ${hi}, infeasible at ${lo} (${sims} simulations)`, found: hi, bound: lo, simulations: sims, candidates: cands, method: 'doubling, then bisection' };
 }
 
 /** Largest feasible margin below the infeasible `margin` (u_max fixed). */
@@ -105,10 +109,12 @@ export function searchMargin(p: FeasibilityProblem, uMax: number, margin: number
   let sims = 0, cands = 0;
   const ok = (m: number) => { cands++; const r = checkCandidate(p, uMax, m, true); sims += r.simulations; return r.feasible; };
   let lo = margin * factor, hi = margin;
-  if (!ok(lo)) return { found: null, bound: lo, simulations: sims, candidates: cands, method: 'bisection' };
+  if (!ok(lo)) {
+    return { status: 'not-found', message: `no margin down to ${lo} is feasible (${sims} simulations)`, found: null, bound: lo, simulations: sims, candidates: cands, method: 'bisection' };
+  }
   while (hi / lo - 1 > relTol && cands < maxC) {
     const mid = Math.sqrt(lo * hi);
     if (ok(mid)) lo = mid; else hi = mid;
   }
-  return { found: lo, bound: hi, simulations: sims, candidates: cands, method: 'bisection' };
+  return { status: 'found', message: `feasible up to margin ${lo}, infeasible at ${hi} (${sims} simulations)`, found: lo, bound: hi, simulations: sims, candidates: cands, method: 'bisection' };
 }

@@ -54,6 +54,7 @@ describe('feasibility check and u_max search', () => {
 
   it('brackets and bisects to the threshold, answering with a verified-feasible u_max', () => {
     const r = searchUMax(problem(), 0.1, 0.1, { relTol: 0.01 });
+    expect(r.status).toBe('found');
     expect(r.method).toBe('doubling, then bisection');
     expect(r.found!).toBeGreaterThanOrEqual(uStar * (1 - 1e-3)); // within the sampling error of the closed form
     expect(r.bound).toBeLessThanOrEqual(uStar * (1 + 1e-3));
@@ -65,6 +66,7 @@ describe('feasibility check and u_max search', () => {
   it('says so when nothing up to the limit works', () => {
     const r = searchUMax(problem(), 0.001, 0.1, { factor: 8 });
     expect(r.found).toBeNull();
+    expect(r.status).toBe('not-found');
     expect(r.bound).toBeCloseTo(0.008, 12);
   });
 });
