@@ -120,7 +120,7 @@ export const run: Verb = async (argv, io) => {
       const svgs: [string, string][] = [];
       svgs.push(['landscape', landscapePlot({
         V: (q) => en.H(q, 0), qRange: [vr.qMin, vr.qMax], coordinate: design.model.coordinate, unit, wells: design.model.wells, barriers: design.model.barriers,
-        targets: design.stages.map((s) => ({ label: `stage ${s.index}: H* = ${s.target.energy}`, energy: s.target.energy })), title: 'Potential landscape V(q) = H(q, 0)',
+        targets: design.stages.map((s) => ({ label: `stage ${s.index} (${s.name}): H* = ${Number(s.target.energy.toPrecision(4))} ${unit}`, energy: s.target.energy })), title: 'Potential landscape V(q) = H(q, 0)',
       })]);
       trials.forEach((t, i) => {
         const base = `trial${i + 1}`;

@@ -75,7 +75,7 @@ const num = (x: number | null | undefined, d = 4): string => `<span class="num">
 const figure = (svg: string, caption: string): string => `<figure>${svg}<figcaption>${e(caption)}</figcaption></figure>`;
 
 function cautionsSection(design?: ControllerDesign): string {
-  const extra = (design?.cautions ?? []).filter((c) => !SAFETY_CAUTIONS.includes(c));
+  const extra = (design?.cautions ?? []).filter((c) => !SAFETY_CAUTIONS.includes(c) && c !== SAFETY_DEFERENCE);
   return `<section class="cautions" id="safety"><h2>Safety cautions</h2>`
     + '<p>Energy controllers deliberately put energy into hardware.</p>'
     + `<ul>${SAFETY_CAUTIONS.map((c) => `<li>${e(c)}</li>`).join('')}</ul>`

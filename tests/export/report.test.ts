@@ -46,6 +46,12 @@ describe('buildReport', () => {
     expect(html).toContain(esc(SAFETY_DEFERENCE));
   });
 
+  it('does not repeat the standard cautions when the design carries them too', () => {
+    const once = buildReport({ design: { ...d, cautions: [...SAFETY_CAUTIONS, SAFETY_DEFERENCE] }, generatedAt: 'x' });
+    expect(once.split(esc(SAFETY_DEFERENCE)).length - 1).toBe(1);
+    expect(once).not.toContain('Cautions recorded with the design');
+  });
+
   it('escapes text from files: no script element, the hostile names shown as text', () => {
     expect(html).not.toMatch(/<script/i);
     expect(html).toContain(esc(hostile));

@@ -39,12 +39,16 @@ export function landscapePlot(o: LandscapePlotOptions): string {
   }
   for (const w of o.wells ?? []) {
     marks.push(el('circle', { cx: x(w.q), cy: y(w.energy), r: 5, fill: COLORS.green, stroke: '#ffffff' }));
-    marks.push(el('text', { x: x(w.q), y: y(w.energy) + 18, 'text-anchor': 'middle', fill: COLORS.ink, 'font-size': 11 }, escapeXml(`well ${w.index}`)));
+    const X = x(w.q);
+    const anchor = X - f.margin.left < 30 ? 'start' : f.width - f.margin.right - X < 30 ? 'end' : 'middle';
+    marks.push(el('text', { x: X, y: y(w.energy) + 18, 'text-anchor': anchor, fill: COLORS.ink, 'font-size': 11 }, escapeXml(`well ${w.index}`)));
   }
   for (const b of o.barriers ?? []) {
     const X = x(b.q), Y = y(b.energy);
     marks.push(el('path', { d: `M${px(X)},${px(Y - 7)}L${px(X + 6)},${px(Y + 4)}L${px(X - 6)},${px(Y + 4)}Z`, fill: COLORS.vermillion, stroke: '#ffffff' }));
-    marks.push(el('text', { x: X, y: Y - 11, 'text-anchor': 'middle', fill: COLORS.ink, 'font-size': 11 }, 'barrier'));
+    // Labels of marks at the ends of the range are anchored inward so they stay inside the plot.
+    const anchor = X - f.margin.left < 30 ? 'start' : f.width - f.margin.right - X < 30 ? 'end' : 'middle';
+    marks.push(el('text', { x: X, y: Y - 11, 'text-anchor': anchor, fill: COLORS.ink, 'font-size': 11 }, 'barrier'));
   }
   const qu = o.coordinate === 'angle' ? 'rad' : 'm';
   const body = defs + axes(x, y, f, `q (${qu})`, `V(q) = H(q, 0) (${o.unit})`)
