@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { exportC } from '../../../src-main/export/c/index.ts';
 import { compileAndRun, perturb } from './compile.ts';
-import { duffingHop } from '../fixtures.ts';
+import { duffingHop, pendulumDesign } from '../fixtures.ts';
 
 const hop0 = duffingHop();
 const hop = { ...hop0, law: { ...hop0.law, uMax: 0.4 } };
@@ -34,4 +34,26 @@ describe('C supervisor', () => {
     expect(bad.status).toBe(1);
   });
 
+
+  it('wrapped conditions: a pendulum one turn away (q near 2 pi) switches on the wrapped angle, as the engine does', () => {
+    const base = pendulumDesign();
+    const d = pendulumDesign({
+      kind: 'well-hop',
+      stages: [
+        { index: 1, name: 'raise', target: { kind: 'energy', energy: 1.0 }, meanB2: null },
+        { index: 2, name: 'settle', target: { kind: 'energy', energy: 0.3 }, meanB2: 40 },
+      ],
+      // Unwrapped, q stays near 2 pi and never goes below -0.5: only the wrapped angle can fire this.
+      transitions: [{ from: 1, to: 2, when: { qBelow: -0.5, vSign: -1, wrapped: true }, reason: 'test' }],
+      law: { ...base.law, uMax: 0.3, rateMax: 20 },
+    });
+    const r = exportC(d, 'wrap', { vectors: { q0: 2 * Math.PI + 0.3, samples: 2500 } });
+    expect(r.vectors.coverage.switches).toBe(1);
+    for (let k = 0; k < r.vectors.q.length; k++) expect(r.vectors.q[k]).toBeGreaterThan(Math.PI);
+    expect(r.files[1].text).toContain('wrap_wrap(q) < (-0.50000000000000000)');
+    const run = compileAndRun(r.files);
+    expect(run.compilerOutput).toBe('');
+    expect(run.stdout).toMatch(/stage mismatches 0/);
+    expect(run.status).toBe(0);
+  });
 });
