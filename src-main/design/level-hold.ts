@@ -146,6 +146,9 @@ export function designLevelHold(model: EnergyModel, options: LevelHoldOptions): 
     const E = V(qT);
     const top = maxOnGrid(V, lo, hi);
     if (top > E * (1 + 1e-9) + 1e-12) throw new DesignRefusal(`a swing of amplitude ${fmt(t.amplitude)} about well ${well.index} would cross a barrier (V = ${fmt(top)} ${units} between q = ${fmt(well.q)} and q = ${fmt(qT)}, above V(q) = ${fmt(E)}): use a well hop`);
+    // The swing must stay in the well: below the lowest barrier next to it (else its other turning point is beyond).
+    const rim = barriers.filter((b) => b.between.includes(well.index)).reduce((a, b) => Math.min(a, b.energy), Infinity);
+    if (E > rim * (1 + 1e-12) + 1e-15) throw new DesignRefusal(`a swing of amplitude ${fmt(t.amplitude)} about well ${well.index} has H* = V(${fmt(qT)}) = ${fmt(E)} ${units}, above the lowest barrier of that well (${fmt(rim)} ${units}): it would not stay in the well; use --target-energy for a swing over the barrier, or a well hop`);
     target = { kind: 'amplitude', amplitude: t.amplitude, energy: E };
   } else {
     target = { kind: 'at-rest', well: well.index, energy: well.energy };

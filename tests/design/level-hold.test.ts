@@ -84,6 +84,8 @@ describe('designLevelHold', () => {
     expect(refusal(() => designLevelHold(duffingModel(), { target: { kind: 'amplitude', amplitude: 1, well: 2 } }))).toMatch(/outside the recorded range/);
     expect(refusal(() => designLevelHold(duffingModel(), { target: { kind: 'amplitude', amplitude: -1.5, well: 2 } }))).toMatch(/cross a barrier/);
     expect(refusal(() => designLevelHold(duffingModel(), { target: { kind: 'energy', energy: -0.1 } }))).toMatch(/below the bottom of well 1/);
+    // V(1.5) = (1.5^2 - 1)^2 / 4 = 0.390625 > 0.25, the barrier: the swing would not stay in well 2.
+    expect(refusal(() => designLevelHold(duffingModel(), { target: { kind: 'amplitude', amplitude: 0.5, well: 2 } }))).toMatch(/H\* = V\(1\.5\) = 0\.3906 J, above the lowest barrier of that well \(0\.25 J\)/);
     expect(refusal(() => designLevelHold(duffingModel(), { target: { kind: 'at-rest', well: 3 } }))).toMatch(/well 3 does not exist/);
   });
 
