@@ -5,7 +5,7 @@
 // top and, optionally, back to rest. Every stage is a level-hold (SDRE energy) law and every
 // switch an explicit SwitchCondition, so the supervisor lives in the document (controllerFromDesign
 // runs it) and nothing is left to the simulator. Before the design is accepted it is simulated on
-// the model's own equations (H = 1/2 M(q) v^2 + V(q) gives M v' + 1/2 M' v^2 + V' = -c v + u,
+// the model's own equations (motion.ts: H = 1/2 M(q) v^2 + V(q) gives M v' + 1/2 M' v^2 + V' = -c v + u,
 // design.md §2 "A model to simulate from H") from a grid of start states at the given u_max,
 // sample rate, delay and margin; when that fails the u_max and the margin that work are searched
 // for (engine/plan/feasibility.ts) and written into design.checks.
@@ -15,19 +15,21 @@
 // dE on the route (a stage should move the energy at full authority); eps = 2% of the typical
 // |b| = |g dH/dv| at the well bottom with kinetic energy dE; loss compensation on every stage whose
 // orbit has a period (<b^2> by meanSquareInputGain), none at rest (<b^2> = 0 there).
-import { termFromSpec, type EnergyModel } from '../engine/learn/index.ts';
-import { termLabel, vPower } from '../engine/learn/library.ts';
-import { compileFormula, differentiate, dependsOn, formatFormula, parseFormula } from '../engine/formula/index.ts';
+import type { EnergyModel, Landscape } from '../engine/learn/index.ts';
+import { compileFormula } from '../engine/formula/index.ts';
 import { meanSquareInputGain } from '../engine/control/index.ts';
 import {
   buildHopPlan, buildRotationPlan, checkCandidate, searchMargin, searchUMax, startGrid, wellAt, wellBounds,
   type FeasibilityProblem, type GridCheck, type HopPlan, type LevelRequest, type SearchResult, type WellBounds,
 } from '../engine/plan/index.ts';
 import type { EnergyFunction } from '../engine/types.ts';
-import { SAFETY_CAUTIONS } from '../safety.ts';
+import { SAFETY_CAUTIONS, SAFETY_DEFERENCE } from '../safety.ts';
 import { APP_VERSION } from '../version.ts';
 import { compileDesignEnergy } from './energy.ts';
 import { controllerFromDesign } from './supervisor.ts';
+import { energyFormula } from './level-hold.ts';
+import { motionFromEnergy } from './motion.ts';
+import { readDesign } from './validate.ts';
 import { DESIGN_FORMAT, DESIGN_VERSION, type ControllerDesign, type Stage } from './types.ts';
 
 export interface WellHopOptions {
@@ -90,8 +92,6 @@ const fmtRound = (x: number, up: boolean) => {
   const p = 10 ** (Math.floor(Math.log10(Math.abs(x))) - 3);
   return Number(((up ? Math.ceil(x / p) : Math.floor(x / p)) * p).toPrecision(4)).toString();
 };
-/** Shortest round-trip decimal: the formula carries the model's coefficients exactly. */
-const num = (x: number) => String(x);
 
 interface ModelParts {
   energy: string;
@@ -102,40 +102,29 @@ interface ModelParts {
   unit: string;
 }
 
-/** H, M(q), V(q) and the equations of motion of the model, as formulas in our language. */
-function modelParts(model: EnergyModel): ModelParts {
-  const terms = model.library.terms.map(termFromSpec);
-  const c = model.coefficients;
-  const hParts: string[] = [], mParts: string[] = [], vParts: string[] = [];
-  const add = (list: string[], coef: number, label: string) => list.push(`${coef < 0 ? '-' : '+'} ${num(Math.abs(coef))}${label ? `*${label}` : ''}`);
-  terms.forEach((t, j) => {
-    if (c[j] === 0) return;
-    add(hParts, c[j], termLabel(t));
-    const b = vPower(t);
-    if (b === 0) add(vParts, c[j], termLabel(t));
-    else if (b === 2 && t.kind !== 'user') add(mParts, 2 * c[j], termLabel({ ...t, b: 0 }));
-    else throw new RangeError(`model: term ${j + 1} (${termLabel(t)}) is not of the form M(q) v^2 or V(q); the well-hop check needs H = 1/2 M(q) v^2 + V(q) to simulate`);
-  });
-  if (model.offset !== 0) { add(hParts, model.offset, ''); add(vParts, model.offset, ''); }
-  if (mParts.length === 0) throw new RangeError('model: H has no v^2 term; H must grow with |v| (design.md §2)');
-  const join = (p: string[]) => { const s = p.join(' '); return s.startsWith('+ ') ? s.slice(2) : s.startsWith('- ') ? `-${s.slice(2)}` : s; };
-  const H = join(hParts), M = join(mParts), V = vParts.length ? join(vParts) : '0';
-  const mAst = parseFormula(M), vAst = parseFormula(V);
-  const dM = formatFormula(differentiate(mAst, 'q')), dV = formatFormula(differentiate(vAst, 'q'));
+/**
+ * H as an exact formula (level-hold.ts energyFormula) and the equations of motion it implies
+ * (motion.ts motionFromEnergy: H = 1/2 M(q) v^2 + V(q), checked on the landscape's range). The
+ * input gain is the model's calibrated one, else 1/M when M is constant.
+ */
+function modelParts(model: EnergyModel, land: Landscape): ModelParts {
+  const energy = energyFormula(model);
+  const qs = Array.from({ length: 21 }, (_, i) => land.qMin + ((land.qMax - land.qMin) * i) / 20);
+  const probe = motionFromEnergy(energy, model.lambda, 1, qs);
+  if (typeof probe === 'string') throw new RangeError(`model: ${probe}; the well-hop check simulates from the equations of motion this form gives`);
   let gain = model.scale?.inputGain ?? null;
   if (gain === null || !Number.isFinite(gain) || gain === 0) {
-    if (dependsOn(mAst, 'q')) throw new RangeError('model.scale.inputGain: missing, and M(q) is not constant, so g = 1/M is not a number; calibrate the model with a forced run');
-    gain = 1 / compileFormula(mAst, ['q']).eval(new Float64Array([0]));
+    const m0 = probe.mass(qs[0]);
+    if (qs.some((q) => Math.abs(probe.mass(q) - m0) > 1e-12 * m0)) throw new RangeError('model.scale.inputGain: missing, and M(q) is not constant, so g = 1/M is not a number; calibrate the model with a forced run');
+    gain = 1 / m0;
   }
-  const free = `(-(0.5*(${dM})*v^2) - (${dV}))/(${M})`;
-  const acceleration = `${free} ${model.lambda < 0 ? '-' : '+'} ${num(Math.abs(model.lambda))}*v ${gain < 0 ? '-' : '+'} ${num(Math.abs(gain))}*u`;
-  const fFree = compileFormula(free, ['q', 'v']);
-  const fAcc = compileFormula(acceleration, ['q', 'v', 'u', 't']);
-  const x2 = new Float64Array(2), x4 = new Float64Array(4);
+  const motion = motionFromEnergy(energy, model.lambda, gain, qs) as Exclude<typeof probe, string>;
+  const fAcc = compileFormula(motion.acceleration, ['q', 'v', 'u', 't']);
+  const x4 = new Float64Array(4);
   return {
-    energy: H, acceleration, gain,
+    energy, acceleration: motion.acceleration, gain,
     unit: model.units === 'J' ? (model.coordinate === 'angle' ? 'N m' : 'N') : '',
-    conservative: (q, v) => { x2[0] = q; x2[1] = v; return fFree.eval(x2); },
+    conservative: motion.undamped,
     accel: (q, v, u, t) => { x4[0] = q; x4[1] = v; x4[2] = u; x4[3] = t; return fAcc.eval(x4); },
   };
 }
@@ -177,7 +166,7 @@ export function designWellHopDetailed(model: EnergyModel, options: WellHopOption
   const gainBand = options.gainBand === undefined ? 0.05 : positive(options.gainBand, 'options.gainBand');
   if ((options.toWell === undefined) === (options.rotation === undefined)) throw new RangeError('options: give exactly one of toWell (a well number) or rotation ({speed, turns})');
 
-  const parts = modelParts(model);
+  const parts = modelParts(model, land);
   const energy = compileDesignEnergy(parts.energy, model.coordinate, model.lambda, 'model energy');
   const H = (q: number, v: number) => energy.H(q, v);
 
@@ -235,7 +224,7 @@ export function designWellHopDetailed(model: EnergyModel, options: WellHopOption
       format: DESIGN_FORMAT,
       version: DESIGN_VERSION,
       kind: 'well-hop',
-      app: APP_VERSION,
+      app: `ergostat ${APP_VERSION}`,
       source: options.source ?? 'energy model',
       model: {
         coordinate: model.coordinate,
@@ -254,7 +243,7 @@ export function designWellHopDetailed(model: EnergyModel, options: WellHopOption
       stages,
       transitions: plan.transitions.map((t) => ({ from: t.from, to: t.to, when: { ...t.when }, reason: t.reason })),
       initialStage: plan.initialStage,
-      cautions: [...SAFETY_CAUTIONS],
+      cautions: [...SAFETY_CAUTIONS, SAFETY_DEFERENCE],
       checks: [],
     };
     return { design, plan };
@@ -319,5 +308,6 @@ export function designWellHopDetailed(model: EnergyModel, options: WellHopOption
   } else {
     design.checks.push({ name: 'feasibility', ok: false, detail: 'not checked (feasibility: false)' });
   }
-  return { design, plan: plan0, check, uMaxSearch: uSearch, marginSearch: mSearch };
+  // The document must read back as a valid design file (validate.ts), as every design does.
+  return { design: readDesign(design, 'designWellHop'), plan: plan0, check, uMaxSearch: uSearch, marginSearch: mSearch };
 }
