@@ -68,6 +68,9 @@ function checkOptions(o: LearnOptions): void {
 }
 
 /** Thresholds of the verdict (relative non-conservation, spectral gap, damping ratio, signal-to-noise). */
+/** A function one degree higher replaces the first conserved one when its non-conservation is this many times smaller. */
+const LEVEL_UP_FACTOR = 10;
+
 export const LEARN_LIMITS = { muMax: 0.02, gapMin: 5, zetaMax: 0.1, snrMin: 20, minPeriods: 3 };
 const WINDOW_FRACTIONS = [0.04, 0.07, 0.11, 0.17];
 /** Largest number of samples the window/lag/degree search looks at (the final fit uses all). */
@@ -286,10 +289,12 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
     const pooledAll = sumGramSets(grams, P, allLags);
     for (let li = 0; li < lagSets.length; li++) {
       const pooled = selectLags(pooledAll, lagIdx[li]);
-      for (let d = minDeg; d <= maxDeg; d++) {
+      // One degree of the library: the best lambda and the weak-form eigenpair (null when the
+      // problem cannot be solved or nothing is nearly conserved at this degree).
+      const evalDegree = (d: number): { cfg: Config; ok: boolean } | null => {
         const active = activeFor(d);
         let sol0;
-        try { sol0 = solveWeak(pooled, dt, 0, null, active); } catch { continue; }
+        try { sol0 = solveWeak(pooled, dt, 0, null, active); } catch { return null; }
         const sign0 = orientation(terms, sol0.xi, states);
         const shift0 = termsValueAt(terms, deepestWell(terms, sol0.xi, sign0, rLo, rHi), 0);
         // Coarse look over lambda first; the full search only where a conserved function is plausible.
@@ -299,7 +304,7 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
         }
         if (coarse > 10 * LEARN_LIMITS.muMax) {
           candidates.push({ halfWindow: m, lagsSeconds: lagSets[li].map((L) => L * dt), degree: null, mu1: coarse, mu2: NaN, gap: NaN, heldOut: NaN, lambda: NaN });
-          continue;
+          return null;
         }
         const sign = orientation(terms, sol0.xi, states);
         const shift = termsValueAt(terms, deepestWell(terms, sol0.xi, sign, rLo, rHi), 0);
@@ -311,7 +316,23 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
         if (ok) cfg.heldOut = heldOutMu(grams.map((g) => selectLags(g, lagIdx[li])), pooled, dt, cfg.lambda, shift, active);
         candidates.push({ halfWindow: m, lagsSeconds: lagSets[li].map((L) => L * dt), degree: ok ? d : null, mu1: cfg.mu1, mu2: cfg.mu2, gap: cfg.gap, heldOut: cfg.heldOut, lambda: cfg.lambda });
         if (!fallback || cfg.mu1 < fallback.mu1) fallback = cfg;
-        if (ok) { found.push(cfg); break; }
+        return { cfg, ok };
+      };
+      for (let d = minDeg; d <= maxDeg; d++) {
+        const r = evalDegree(d);
+        if (!r || !r.ok) continue;
+        // A lower-degree function can pass the limits while conserved only piecewise, e.g. an odd
+        // function of q that stays constant on orbits inside each well of a double well but not
+        // across the barrier. The energy then shows up one degree higher with a non-conservation
+        // an order of magnitude smaller: take it. Functions of H (H^2, ...) do not improve on H
+        // by that factor, so H is still found before H^2.
+        let accept = r.cfg;
+        if (d + 1 <= maxDeg) {
+          const up = evalDegree(d + 1);
+          if (up && up.ok && up.cfg.mu1 <= r.cfg.mu1 / LEVEL_UP_FACTOR) accept = up.cfg;
+        }
+        found.push(accept);
+        break;
       }
     }
   }
@@ -320,7 +341,11 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
   // largest spectral gap (a clear conserved function stands far below the next one).
   if (found.length) {
     const dMin = Math.min(...found.map((c) => c.degree));
-    const atMin = found.filter((c) => c.degree === dMin);
+    let atMin = found.filter((c) => c.degree === dMin);
+    // The same level-up rule as in the degree growth, across windows and lags.
+    const bestLow = Math.min(...atMin.map((c) => c.mu1));
+    const higher = found.filter((c) => c.degree === dMin + 1 && c.mu1 <= bestLow / LEVEL_UP_FACTOR);
+    if (higher.length > 0) atMin = higher;
     const hs = atMin.map((c) => c.heldOut).filter(Number.isFinite);
     const hBest = hs.length ? Math.min(...hs) : NaN;
     const eligible = atMin.filter((c) => !Number.isFinite(hBest) || !Number.isFinite(c.heldOut) || c.heldOut <= 1.5 * hBest);
