@@ -113,7 +113,12 @@ export function bodySource(design: ControllerDesign, name: string, info: SourceI
   const p = name;
   const law = design.law;
   const ast = parseFormula(design.model.energy);
-  const code = formulaToC([ast, differentiate(ast, 'q'), differentiate(ast, 'v')], p);
+  let code;
+  try {
+    code = formulaToC([ast, differentiate(ast, 'q'), differentiate(ast, 'v')], p);
+  } catch (e) {
+    throw new RangeError(`design.model.energy: ${(e as Error).message}`);
+  }
   code.helpers.add('sign');
   const n = design.stages.length;
   const angle = design.model.coordinate === 'angle';

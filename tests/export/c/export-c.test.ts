@@ -55,6 +55,8 @@ describe('exportC', () => {
     expect(() => exportC(pendulumDesign({ sampleRateHz: 0 }), 'p')).toThrow(/design\.sampleRateHz/);
     expect(() => exportC(pendulumDesign({ law: { ...pend.law, Q: NaN } }), 'p')).toThrow(/design\.law\.Q/);
     expect(() => exportC(pendulumDesign({ model: { ...pend.model, energy: 'v^2 + x' } }), 'p')).toThrow(/design\.model\.energy/);
+    // A constant part that folds to NaN (log(0)*0) cannot be a C constant.
+    expect(() => exportC(pendulumDesign({ model: { ...pend.model, energy: 'v^2 + log(0)*0*q' } }), 'p')).toThrow(/design\.model\.energy: .*non-finite number NaN/);
   });
 
   it('keeps hostile text out of the code: a design source with comment terminators stays inside the comment', () => {
