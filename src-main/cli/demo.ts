@@ -42,7 +42,7 @@ function stepsFor(rig: DemoRig, d: DemoRecording, file: string, out: string): St
   return [
     ...common,
     // Snap the strip from the left well into the right one and bring it to rest there.
-    { argv: ['design', p('model.json'), '--to-well', '2', '--from-well', '1', '--at-rest', '--umax', '0.5', '--rate', '1000', '--mass', String(d.mass), '--out', p('hop-design.json')], yields: { kind: 'design', file: p('hop-design.json'), name: 'hop from well 1 to well 2' } },
+    { argv: ['design', p('model.json'), '--to-well', '2', '--from-well', '1', '--at-rest', '--umax', '0.5', '--rate', '1000', '--out', p('hop-design.json')], yields: { kind: 'design', file: p('hop-design.json'), name: 'hop from well 1 to well 2' } },
     { argv: ['trial', p('hop-design.json'), '--q0', '-0.004', '--v0', '0', '--duration', '6', '--sensor-bits', '14', '--sensor-range', '0.02', '--noise', '0.000008', '--estimator', 'observer', '--out', p('hop-trial.csv')], yields: { kind: 'trial', file: p('hop-trial.csv'), name: 'hop 1 -> 2' } },
     { argv: ['export', p('hop-design.json'), '--c', p('c'), '--name', 'tamsin_hop', '--report', p('report.html'), '--model', p('model.json'), '--trial', p('hop-trial.csv'), '--plots', p('plots'), '--json', p('json')] },
   ];
