@@ -13,7 +13,8 @@
 // Law parameters (our choices, documented in docs/well-hops.md): R = 1, Q = (u_max / (gainBand dE))^2
 // so the law saturates once |H - H*| exceeds gainBand (default 5%) of the smallest barrier height
 // dE on the route (a stage should move the energy at full authority); eps = 2% of the typical
-// |b| = |g dH/dv| at the well bottom with kinetic energy dE; loss compensation on every stage whose
+// |b| = |g dH/dv| at the well bottom with kinetic energy dE, or the velocity noise's share of b
+// when larger (as in level-hold.ts); loss compensation on every stage whose
 // orbit has a period (<b^2> by meanSquareInputGain), none at rest (<b^2> = 0 there).
 import type { EnergyModel, Landscape } from '../engine/learn/index.ts';
 import { compileFormula } from '../engine/formula/index.ts';
@@ -100,6 +101,7 @@ interface ModelParts {
   accel: (q: number, v: number, u: number, t: number) => number;
   gain: number;
   unit: string;
+  mass: (q: number) => number;
 }
 
 /**
@@ -125,6 +127,7 @@ function modelParts(model: EnergyModel, land: Landscape): ModelParts {
     energy, acceleration: motion.acceleration, gain,
     unit: model.units === 'J' ? (model.coordinate === 'angle' ? 'N m' : 'N') : '',
     conservative: motion.undamped,
+    mass: motion.mass,
     accel: (q, v, u, t) => { x4[0] = q; x4[1] = v; x4[2] = u; x4[3] = t; return fAcc.eval(x4); },
   };
 }
@@ -200,7 +203,13 @@ export function designWellHopDetailed(model: EnergyModel, options: WellHopOption
     : plan0.legs.flatMap((l) => [l.highest - l.start.V, ...(Number.isFinite(l.target.rim) ? [l.target.rim - l.target.V] : [])]);
   const dE = Math.min(...heights);
   const g = parts.gain;
-  const eps = options.eps ?? 0.02 * typicalB(energy, g, startWell, dE);
+  // eps: at least the velocity noise seen through b, as designLevelHold takes it: 3 |g| M sigma_v with
+  // sigma_v the noise of a least-squares slope over the model's Savitzky-Golay window (common practice).
+  const met = model.metrics;
+  const N = 2 * Math.max(1, met?.halfWindow ?? 1) + 1;
+  const sq = met && Number.isFinite(met.noiseSigma) && met.noiseSigma > 0 && met.dt > 0 ? met.noiseSigma : 0;
+  const sigmaV = sq > 0 ? (sq / met.dt) * Math.sqrt(12 / (N * (N * N - 1))) : 0;
+  const eps = options.eps ?? Math.max(0.02 * typicalB(energy, g, startWell, dE), 3 * Math.abs(g) * parts.mass(startWell.q) * sigmaV);
   const R = options.R ?? 1;
 
   // <b^2> per stage on its own orbit (through the bottom of the stage's well).

@@ -43,6 +43,8 @@ export interface RotationPlanOptions {
 }
 
 const fmt = (x: number) => Number(x.toPrecision(6)).toString();
+/** Positions to 1e-6 (rad or m): a barrier found at 5e-9 reads as 0. */
+const fmtQ = (x: number) => Number(x.toFixed(6)).toString();
 const TWO_PI = 2 * Math.PI;
 
 /** {qAbove, qBelow} on the wrapped angle for the unwrapped interval (lo, hi), hi - lo < 2 pi. */
@@ -82,7 +84,7 @@ export function buildHopPlan(land: Landscape, H: (q: number, v: number) => numbe
       transitions.push({
         from: raise, to: settleStage,
         when: leg.direction > 0 ? { qAbove: qs, vSign: 1 } : { qBelow: qs, vSign: -1 },
-        reason: `past the barrier at q = ${fmt(b.q)} (H = ${fmt(b.V)}), heading into well ${leg.to}`,
+        reason: `past the barrier at q = ${fmtQ(b.q)} (H = ${fmt(b.V)}), heading into well ${leg.to}`,
       });
     } else {
       // Both sides, the planned one first: entering over the left barrier moving +q, over the right one moving -q.
@@ -93,7 +95,7 @@ export function buildHopPlan(land: Landscape, H: (q: number, v: number) => numbe
         const range = side > 0 ? wrappedInterval(qs, t.q) : wrappedInterval(t.q, qs);
         transitions.push({
           from: raise, to: settleStage, when: { ...range, vSign: side, wrapped: true },
-          reason: `past the barrier at q = ${fmt(edge.q)} (H = ${fmt(edge.V)}, wrapped angle), heading into well ${leg.to} ${side > 0 ? 'in +q' : 'in -q'}`,
+          reason: `past the barrier at q = ${fmtQ(edge.q)} (H = ${fmt(edge.V)}, wrapped angle), heading into well ${leg.to} ${side > 0 ? 'in +q' : 'in -q'}`,
         });
       }
     }
