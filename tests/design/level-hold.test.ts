@@ -99,6 +99,11 @@ describe('designLevelHold', () => {
     expect(g.input.gain).toBe(4);
     const c = designLevelHold(pendulumModel(I), { target: { kind: 'energy', energy: 0.5 } });
     expect(c.input.gain).toBeCloseTo(1 / I, 12);
+    // A calibrated model given another inertia is rescaled to it: H* = 2 I (g/l)(1 - cos A) for inertia 2 I.
+    const r = designLevelHold(pendulumModel(I), { target: { kind: 'amplitude', amplitude: 1 }, mass: 2 * I });
+    expect(r.stages[0].target.energy).toBeCloseTo(2 * I * W2 * (1 - Math.cos(1)), 12);
+    expect(r.input.gain).toBeCloseTo(1 / (2 * I), 12);
+    expect(r.checks[0].detail).toMatch(/replaces the model's mass/);
   });
 
   it('reports a u_max too small to overcome the damping at the target (RMS |lambda H*| / sqrt(<v^2>))', () => {
