@@ -23,7 +23,7 @@ const USAGE = [
   '  --target-energy E: hold the energy E (in the model\'s unit, J once calibrated);',
   '  --target-amplitude A: hold a swing of amplitude A about the bottom of the well (H* = V(q_well + A));',
   '  --at-rest: bring the rig to rest at the bottom of the well; --well K: the well (default: nearest the centre of the recordings).',
-  '  --weights Q,R: weights on (H - H*)^2 and u^2 (default: the law reaches u_max at 5% energy error);',
+  '  --weights Q,R: weights on (H - H*)^2 and u^2 (default: the law reaches u_max at 15% energy error);',
   '  --umax U: actuator limit |u| <= U; --rate HZ: controller sample rate (default 1000); --integral: integral action.',
   '  --mass KG (kg m^2 for an angle) or --input-gain G: needed when the model is per unit mass (the law computes u in the input\'s unit).',
   '  --to-well K: a staged hop into well K (stage 1 over the barrier, stage 2 to --level/--amplitude/--at-rest in well K);',
