@@ -8,3 +8,4 @@ export { MAX_FORMULA_LENGTH } from './tokenize.ts';
 export { compileFormula, type CompiledFormula, type CompileOptions } from './compile.ts';
 export { differentiate, dependsOn } from './differentiate.ts';
 export { formatFormula } from './format.ts';
+export { energyFromFormula } from './energy-function.ts';

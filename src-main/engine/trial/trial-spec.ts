@@ -5,7 +5,7 @@
 // simulate() drives; runTrialSpec() runs it and scores it.
 import type { Coordinate, EnergyFunction } from '../types.ts';
 import type { Controller, EstimatorOptions, SensorOptions, TrialPlant } from './types.ts';
-import { compileFormula, differentiate, parseFormula } from '../formula/index.ts';
+import { energyFromFormula } from '../formula/index.ts';
 import { compilePlant, withParams, type PlantSpec } from '../plant/index.ts';
 import { energyPump, openLoop } from './energy-pump.ts';
 import { levelHoldController } from './level-hold-adapter.ts';
@@ -93,23 +93,7 @@ export function compileEnergySpec(spec: EnergySpec, coordinate: Coordinate, wher
   if (typeof spec.H !== 'string') throw new TypeError(`${where}.H: expected a formula string in q and v`);
   const params = checkParams(spec.params, `${where}.params`);
   const lambda = spec.lambda === undefined ? 0 : finite(spec.lambda, `${where}.lambda`);
-  let H, Hq, Hv;
-  try {
-    const ast = parseFormula(spec.H);
-    const vars = ['q', 'v'];
-    H = compileFormula(ast, vars, { constants: params });
-    Hq = compileFormula(differentiate(ast, 'q'), vars, { constants: params });
-    Hv = compileFormula(differentiate(ast, 'v'), vars, { constants: params });
-  } catch (e) {
-    throw new TypeError(`${where}.H: ${(e as Error).message}`);
-  }
-  const x = new Float64Array(2);
-  return {
-    coordinate,
-    lambda,
-    H(q, v) { x[0] = q; x[1] = v; return H.eval(x); },
-    grad(q, v, out) { x[0] = q; x[1] = v; out[0] = Hq.eval(x); out[1] = Hv.eval(x); },
-  };
+  return energyFromFormula(spec.H, coordinate, lambda, { params, where: `${where}.H` });
 }
 
 export function buildController(spec: ControllerSpec, energy: EnergyFunction, where = 'controller'): Controller {
