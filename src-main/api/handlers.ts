@@ -18,6 +18,12 @@ import { readDesign } from '../design/validate.ts';
 import type { ControllerDesign } from '../design/types.ts';
 import type { LevelTargetRequest } from '../design/level-hold.ts';
 import { energyGrid, potentialCurve, runEnergies } from './energy-views.ts';
+import { availableParallelism } from 'node:os';
+import { isAbsolute } from 'node:path';
+import { TrialSettingsError, checkTrialSettings, type DesignTrialResult, type TrialSettings } from '../design/run-trial.ts';
+import { readTrialEntry, trialDetail, trialEntry } from './trial-views.ts';
+import { writeExport, type ExportTrial } from './export-bundle.ts';
+import type { BaselineRow } from '../engine/trial/index.ts';
 
 export function createHandlers(ws: Workspace = new Workspace()): Partial<Handlers<Operations>> {
   const mappingOf = (m: { time: string; position: string; run?: string; input?: string; angle?: boolean }): ColumnMapping => ({ ...m });
@@ -125,12 +131,88 @@ export function createHandlers(ws: Workspace = new Workspace()): Partial<Handler
       return { name, model: a.model, design, project: ws.summary() };
     },
     'controller.get': ({ design: name }) => {
-      const d = ws.store.designs.peek(name);
-      if (!d) throw new OperationError('failed', `no design named "${name}"`);
-      const body = d.body as { model?: unknown; design?: unknown };
-      return { name, model: typeof body.model === 'string' ? body.model : '', design: readDesign(body.design, `design "${name}"`) };
+      const d = storedDesign(ws, name);
+      return { name, model: d.model, design: d.design };
+    },
+    'trial.run': async (a, ctx) => {
+      const { design } = storedDesign(ws, a.design);
+      if (a.sensorRange !== undefined && a.sensorBits === undefined) throw new OperationError('bad-arguments', 'trial.run: arguments.sensorRange needs arguments.sensorBits');
+      if (a.mismatch !== undefined && a.runs === undefined) throw new OperationError('bad-arguments', 'trial.run: arguments.mismatch needs arguments.runs (the Monte Carlo)');
+      const settings: TrialSettings = {
+        q0: a.q0, v0: a.v0, duration: a.duration, runs: a.runs ?? null, mismatch: a.mismatch ?? 0,
+        // Leave one core to the window; at most 4 workers (Monte Carlo runs are short).
+        workers: Math.max(1, Math.min(4, availableParallelism() - 1)),
+        bits: a.sensorBits ?? null, range: a.sensorRange ?? null, noise: a.noise ?? 0, estimator: a.estimator ?? 'difference', seed: a.seed ?? 0,
+      };
+      try {
+        checkTrialSettings(settings, design);
+      } catch (err) {
+        if (err instanceof TrialSettingsError) throw new OperationError('bad-arguments', `trial.run: ${err.message}`);
+        throw err;
+      }
+      let r: DesignTrialResult;
+      try {
+        r = await runJob('trial', { design, settings, designLabel: a.design }, { signal: ctx.signal, onProgress: (fraction, message) => ctx.progress({ fraction, message }) });
+      } catch (err) {
+        if (err instanceof JobCancelled) throw new OperationError('cancelled', 'trial cancelled');
+        throw new OperationError('failed', `trial.run: ${(err as Error).message}`);
+      }
+      const name = ws.uniqueName((n) => ws.store.trials.has(n), `${a.design} trial`);
+      ws.store.trials.put(trialEntry(name, a.design, settings, r));
+      ws.dirty = true;
+      const back = readTrialEntry(ws.store.trials.peek(name)!);
+      return { ...trialDetail(name, a.design, design, settings, back.outcome, back.monteCarloRuns, back.warnings, r.trace, a.maxPoints ?? 4000), project: ws.summary() };
+    },
+    'trial.get': ({ trial: name, maxPoints }) => {
+      const e = ws.store.trials.peek(name);
+      if (!e) throw new OperationError('failed', `no trial named "${name}"`);
+      let t;
+      try {
+        t = readTrialEntry(e);
+      } catch (err) {
+        throw new OperationError('failed', (err as Error).message);
+      }
+      const { design } = storedDesign(ws, t.design);
+      return trialDetail(name, t.design, design, t.settings, t.outcome, t.monteCarloRuns, t.warnings, t.trace, maxPoints ?? 4000);
+    },
+    'export.write': (a) => {
+      if (a.cautionsAcknowledged !== true) {
+        throw new OperationError('forbidden', 'export.write: refused — the safety cautions must be shown and acknowledged first (arguments.cautionsAcknowledged: true)');
+      }
+      if (!isAbsolute(a.folder)) throw new OperationError('bad-arguments', `export.write: arguments.folder: expected an absolute path, got "${a.folder.slice(0, 200)}"`);
+      const o = a.outputs;
+      if (!o.c && !o.report && !o.plots && !o.json && !o.csv) throw new OperationError('bad-arguments', 'export.write: arguments.outputs: choose at least one of c, report, plots, json, csv');
+      const { design, model: modelName } = storedDesign(ws, a.design);
+      let model: EnergyModel | undefined;
+      if (ws.store.models.has(modelName)) model = storedModel(ws, modelName).model;
+      const trials: ExportTrial[] = (a.trials ?? []).map((tn, i) => {
+        const e = ws.store.trials.peek(tn);
+        if (!e) throw new OperationError('bad-arguments', `export.write: arguments.trials[${i}]: no trial named "${tn}"`);
+        let t;
+        try {
+          t = readTrialEntry(e);
+        } catch (err) {
+          throw new OperationError('failed', (err as Error).message);
+        }
+        if (t.design !== a.design) throw new OperationError('bad-arguments', `export.write: arguments.trials[${i}]: trial "${tn}" is of design "${t.design}", not "${a.design}"`);
+        return { name: tn, trace: t.trace, baselines: t.outcome.baselines as unknown as BaselineRow[] };
+      });
+      try {
+        return writeExport(a.folder, `Ergostat report: ${a.design}`, design, model, trials, o);
+      } catch (err) {
+        const code = (err as NodeJS.ErrnoException).code;
+        throw new OperationError('failed', `export.write: ${code ? `cannot write into ${a.folder} (${code})` : (err as Error).message}`);
+      }
     },
   };
+}
+
+/** A stored design, validated again on the way out (project files are untrusted). */
+function storedDesign(ws: Workspace, name: string): { design: ControllerDesign; model: string } {
+  const d = ws.store.designs.peek(name);
+  if (!d) throw new OperationError('failed', `no design named "${name}"`);
+  const body = d.body as { model?: unknown; design?: unknown };
+  return { design: readDesign(body.design, `design "${name}"`), model: typeof body.model === 'string' ? body.model : '' };
 }
 
 /** A stored model, validated again on the way out (project files are untrusted). */

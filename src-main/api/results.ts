@@ -100,3 +100,135 @@ export interface DesignDetail {
   model: string;
   design: ControllerDesign;
 }
+
+/** The trial's trace for drawing: decimated keeping each column's extremes per bucket. */
+export interface TrialTrace {
+  t: number[];
+  q: number[];
+  v: number[];
+  u: number[];
+  H: number[];
+  /** Supervisor stage per row (staged designs). */
+  stage?: number[];
+  decimated: boolean;
+  /** Rows of the full trace (kept in the project). */
+  samples: number;
+}
+
+/** Trial metrics as JSON (engine/trial TrialMetrics; values JSON cannot hold arrive as null). */
+export interface TrialMetricsJson {
+  target: number;
+  band: number;
+  resolution: number | null;
+  bandBasis: 'relative' | 'resolution';
+  timeToBand: number | null;
+  converged: boolean;
+  cycles: number;
+  finalEnergy: number | null;
+  finalError: number | null;
+  finalRelError: number | null;
+  spread: number | null;
+  spreadStd: number | null;
+  amplitude: number | null;
+  qMin: number | null;
+  qMax: number | null;
+  J: number | null;
+  peakU: number | null;
+  workAbs: number | null;
+  workNet: number | null;
+  totalVariation: number | null;
+  saturatedShare: number | null;
+}
+
+export interface TrialRow {
+  name: string;
+  status: string;
+  message: string;
+  converged: boolean;
+  finalWell: number | null;
+  metrics: TrialMetricsJson | null;
+}
+
+export interface MonteCarloSummary {
+  kind: 'monte-carlo';
+  status: string;
+  message: string;
+  runs: number;
+  completed: number;
+  mismatch: number;
+  seed: number;
+  convergedCount: number;
+  convergedShare: number | null;
+  timeToBand: { median: number | null; p95: number | null; max: number | null; settled: number };
+  finalAbsRelError: { median: number | null; p95: number | null; max: number | null };
+  J: { median: number | null; p95: number | null };
+  peakU: { max: number | null };
+  workers: number;
+  wallMs: number;
+}
+
+/** The outcome line of a trial, as `ergostat trial` prints it (design/run-trial.ts). */
+export interface TrialOutcomeJson {
+  kind: 'trial';
+  design: string;
+  plant: string;
+  status: string;
+  message: string;
+  target: { kind: string; energy: number; well?: number };
+  converged: boolean;
+  finalWell: number | null;
+  metrics: TrialMetricsJson | null;
+  switches?: { t: number; from: number; to: number }[];
+  /** Baselines on the same setup and metrics (the design itself is `metrics`). */
+  baselines: TrialRow[];
+  monteCarlo: MonteCarloSummary | null;
+}
+
+export interface TrialSettingsJson {
+  q0: number;
+  v0: number;
+  duration: number;
+  runs: number | null;
+  mismatch: number;
+  workers: number;
+  bits: number | null;
+  range: number | null;
+  noise: number;
+  estimator: 'difference' | 'observer';
+  seed: number;
+}
+
+export interface TrialDetail {
+  name: string;
+  design: string;
+  settings: TrialSettingsJson;
+  outcome: TrialOutcomeJson;
+  /** Per-run Monte Carlo figures, for the spread plots. */
+  monteCarloRuns: { index: number; converged: boolean; timeToBand: number | null; finalRelError: number | null; peakU: number | null }[];
+  warnings: string[];
+  stages: { index: number; name: string; energy: number }[];
+  /** H* of the stage the design ends in (the metrics' target). */
+  finalTarget: number;
+  uMax: number | null;
+  units: { q: 'rad' | 'm'; energy: string; input: string };
+  wells: { index: number; q: number }[];
+  barriers: { q: number; energy: number }[];
+  trace: TrialTrace;
+  /** H of the design's model on a grid around the trajectory (level sets of the phase portrait). */
+  grid: EnergyGrid;
+}
+
+export interface TrialRunResult extends TrialDetail {
+  project: ProjectSummary;
+}
+
+export interface ExportResult {
+  folder: string;
+  files: { path: string; kind: 'c' | 'json' | 'csv' | 'svg' | 'png' | 'html'; bytes: number }[];
+  /** What the caller should know (C test-vector coverage, values written as null, ...). */
+  notes: string[];
+}
+
+export interface DialogFolder {
+  path: string | null;
+}

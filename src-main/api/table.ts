@@ -30,6 +30,31 @@ export interface DesignArgs {
   weights?: { Q: number; R: number };
 }
 
+export interface TrialRunArgs {
+  design: string;
+  q0: number;
+  v0: number;
+  duration: number;
+  sensorBits?: number;
+  sensorRange?: number;
+  noise?: number;
+  estimator?: 'difference' | 'observer';
+  runs?: number;
+  mismatch?: number;
+  seed?: number;
+  maxPoints?: number;
+}
+
+export interface ExportArgs {
+  design: string;
+  folder: string;
+  outputs: { c?: { name: string }; report?: boolean; plots?: boolean; json?: boolean; csv?: boolean };
+  trials?: string[];
+  cautionsAcknowledged: boolean;
+}
+
+const maxPoints = v.optional(v.number({ integer: true, min: 100, max: 200_000 }));
+
 export const operations = {
   'app.info': operation<{}, R.AppInfo>('Version, file format version and the safety cautions.', v.object({})),
   'project.state': operation<{}, R.ProjectSummary>('What the open project holds.', v.object({})),
@@ -74,6 +99,40 @@ export const operations = {
       weights: v.optional(v.object({ Q: v.number({ min: 0 }), R: v.number({ min: 0 }) })),
     }), { long: true }),
   'controller.get': operation<{ design: string }, R.DesignDetail>('A stored controller design in full.', v.object({ design: entryName })),
+  'trial.run': operation<TrialRunArgs, R.TrialRunResult>(
+    'Run a closed-loop trial of a design on its own model, with the baselines and an optional Monte Carlo (worker threads); stored in the project.',
+    v.object({
+      design: entryName,
+      q0: v.number({ min: -1e6, max: 1e6 }),
+      v0: v.number({ min: -1e6, max: 1e6 }),
+      duration: v.number({ min: 1e-3, max: 1e5 }),
+      sensorBits: v.optional(v.number({ integer: true, min: 1, max: 32 })),
+      sensorRange: v.optional(v.number({ min: 1e-12, max: 1e6 })),
+      noise: v.optional(v.number({ min: 0, max: 1e3 })),
+      estimator: v.optional(v.literal('difference', 'observer')),
+      runs: v.optional(v.number({ integer: true, min: 1, max: 10_000 })),
+      mismatch: v.optional(v.number({ min: 0, max: 0.95 })),
+      seed: v.optional(v.number({ integer: true, min: 0, max: Number.MAX_SAFE_INTEGER })),
+      maxPoints,
+    }), { long: true }),
+  'trial.get': operation<{ trial: string; maxPoints?: number }, R.TrialDetail>('A stored trial: its settings, metrics, baselines, Monte Carlo and decimated trace.',
+    v.object({ trial: entryName, maxPoints })),
+  'export.write': operation<ExportArgs, R.ExportResult>(
+    'Write a design\'s C99 controller and check program, JSON, trial CSVs, plots and report into a folder (only once the safety cautions are acknowledged).',
+    v.object({
+      design: entryName,
+      folder: path,
+      outputs: v.object({
+        c: v.optional(v.object({ name: v.string({ min: 1, max: 64, pattern: /^[A-Za-z_][A-Za-z0-9_]*$/ }) })),
+        report: v.optional(v.boolean()),
+        plots: v.optional(v.boolean()),
+        json: v.optional(v.boolean()),
+        csv: v.optional(v.boolean()),
+      }),
+      trials: v.optional(v.array(entryName, { max: 50 })),
+      cautionsAcknowledged: v.boolean(),
+    })),
+  'dialog.folder': operation<{}, R.DialogFolder>('Ask for a folder with the system dialog (desktop only).', v.object({})),
   'dialog.open': operation<{ kind: 'project' | 'recordings' }, R.DialogOpen>('Ask for files with the system dialog (desktop only).', v.object({ kind: v.literal('project', 'recordings') })),
   'dialog.save': operation<{ kind: 'project' | 'json' | 'csv' | 'html' | 'svg' | 'png'; suggestedName: string }, R.DialogSave>(
     'Ask where to save with the system dialog (desktop only).',

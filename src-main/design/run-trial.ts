@@ -93,7 +93,8 @@ export interface DesignTrialResult {
   warnings: string[];
 }
 
-function checkSettings(s: TrialSettings, design: ControllerDesign): void {
+/** Throws TrialSettingsError naming the first bad setting. */
+export function checkTrialSettings(s: TrialSettings, design: ControllerDesign): void {
   const fin = (name: string, x: unknown) => {
     if (typeof x !== 'number' || !Number.isFinite(x)) throw new TrialSettingsError(`${name}: expected a finite number, got ${String(x)}`);
   };
@@ -174,7 +175,7 @@ const figures = (index: number, converged: boolean, m: TrialMetrics | null): Mon
 });
 
 export async function runDesignTrial(design: ControllerDesign, s: TrialSettings, opts: RunTrialOptions = {}): Promise<DesignTrialResult> {
-  checkSettings(s, design);
+  checkTrialSettings(s, design);
   const plantLabel = opts.plantLabel ?? 'model';
   const spec = trialPlantSpec(design, opts.plant, plantLabel);
   const energy = compileDesignEnergy(design.model.energy, design.model.coordinate, design.model.lambda);

@@ -5,6 +5,7 @@ import type { JobKinds, JobMessage } from './kinds.ts';
 import { learnEnergy } from '../engine/learn/index.ts';
 import { designLevelHold } from '../design/level-hold.ts';
 import { designWellHop } from '../design/hop.ts';
+import { runDesignTrial } from '../design/run-trial.ts';
 
 type Input = { [K in keyof JobKinds]: { kind: K; payload: JobKinds[K]['payload'] } }[keyof JobKinds];
 
@@ -24,6 +25,18 @@ try {
       const p = input.payload;
       post({ type: 'progress', fraction: NaN, message: p.kind === 'well-hop' ? 'planning the hop and checking it by simulation' : 'designing the level hold' });
       post({ type: 'done', result: p.kind === 'well-hop' ? designWellHop(p.model, p.options) : designLevelHold(p.model, p.options) });
+      break;
+    }
+    case 'trial': {
+      const p = input.payload;
+      // Asynchronous (its Monte Carlo waits for worker threads); no top-level await in the bundle.
+      runDesignTrial(p.design, p.settings, {
+        designLabel: p.designLabel,
+        onProgress: (pr) => post({ type: 'progress', fraction: pr.total > 0 ? pr.done / pr.total : NaN, message: pr.message }),
+      }).then(
+        (result) => post({ type: 'done', result }),
+        (e: unknown) => post({ type: 'failed', message: e instanceof Error ? e.message : String(e) }),
+      );
       break;
     }
     default:

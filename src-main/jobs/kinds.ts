@@ -6,6 +6,7 @@ import type { LearnOptions } from '../engine/learn/index.ts';
 import type { ControllerDesign } from '../design/types.ts';
 import type { LevelHoldOptions } from '../design/level-hold.ts';
 import type { WellHopOptions } from '../design/hop.ts';
+import type { DesignTrialResult, TrialSettings } from '../design/run-trial.ts';
 
 export interface JobKinds {
   learn: { payload: { recording: Recording; options: LearnOptions }; result: EnergyModel };
@@ -13,6 +14,8 @@ export interface JobKinds {
   design:
     | { payload: { model: EnergyModel; kind: 'level-hold'; options: LevelHoldOptions }; result: ControllerDesign }
     | { payload: { model: EnergyModel; kind: 'well-hop'; options: WellHopOptions }; result: ControllerDesign };
+  /** A closed-loop trial of a design on its own model: nominal run, baselines, Monte Carlo (which starts its own workers). */
+  trial: { payload: { design: ControllerDesign; settings: TrialSettings; designLabel: string }; result: DesignTrialResult };
 }
 
 export type JobKind = keyof JobKinds;
