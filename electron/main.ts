@@ -128,6 +128,10 @@ if (!app.requestSingleInstanceLock()) {
       const r = await dialog.showSaveDialog(mainWindow!, { defaultPath: suggestedName, filters: [{ name: ext.toUpperCase(), extensions: [ext] }] });
       return { path: r.canceled || !r.filePath ? null : r.filePath };
     };
+    handlers['dialog.folder'] = async () => {
+      const r = await dialog.showOpenDialog(mainWindow!, { properties: ['openDirectory', 'createDirectory'] });
+      return { path: r.canceled || !r.filePaths[0] ? null : r.filePaths[0] };
+    };
     wireIpc(ipcMain, handlers, { appOrigin: appOrigin(), trusted: (wc) => mainWindow !== null && wc.id === mainWindow.webContents.id });
     buildMenu();
     createWindow();
