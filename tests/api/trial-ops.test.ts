@@ -9,6 +9,7 @@ import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { callOperation } from '../../src-main/api/gate.ts';
+import type { CallContext } from '../../src-main/api/define.ts';
 import { operations } from '../../src-main/api/table.ts';
 import { createHandlers } from '../../src-main/api/handlers.ts';
 import { Workspace } from '../../src-main/api/workspace.ts';
@@ -22,15 +23,15 @@ describe('trial and export operations', () => {
   it('runs a trial with baselines and a Monte Carlo, stores it, reads it back and exports it', async () => {
     const ws = new Workspace();
     const h = createHandlers(ws);
-    const ctx = { signal: new AbortController().signal, progress: () => {} };
-    const call = (name: string, args: unknown, c = ctx) => callOperation(operations, h, name, args, c) as Promise<any>;
+    const ctx: CallContext = { signal: new AbortController().signal, progress: () => {} };
+    const call = (name: string, args: unknown, c: CallContext = ctx) => callOperation(operations, h, name, args, c) as Promise<any>;
     await call('recordings.demo', { rig: 'pendulum' });
     const learned = await call('energy.learn', { recording: 'larkspur-pendulum' });
     const d = await call('controller.design', { model: learned.name, mode: 'level-hold', target: { kind: 'amplitude', value: 1.2 }, uMax: 0.4, rateHz: 500 });
 
     const progress: string[] = [];
     const r = await call('trial.run', { design: d.name, q0: 0.3, v0: 0, duration: 20, runs: 3, mismatch: 0, maxPoints: 1000 },
-      { signal: new AbortController().signal, progress: (p: { message: string }) => progress.push(p.message) });
+      { signal: new AbortController().signal, progress: (p) => { progress.push(p.message); } });
     expect(progress.some((p) => /monte carlo: 3 of 3/.test(p))).toBe(true);
     // The trace starts at the given state; the learned H there is the pendulum's energy within 3 %.
     expect(r.trace.q[0]).toBe(0.3);
@@ -97,7 +98,7 @@ describe('trial and export operations', () => {
     const ac = new AbortController();
     const before = ws.store.trials.size;
     const pending = call('trial.run', { design: d.name, q0: 0.3, v0: 0, duration: 20, runs: 5000, mismatch: 0.1 },
-      { signal: ac.signal, progress: (p: { message: string }) => { if (/monte carlo: 1 of/.test(p.message)) ac.abort(); } });
+      { signal: ac.signal, progress: (p) => { if (/monte carlo: 1 of/.test(p.message)) ac.abort(); } });
     await expect(pending).rejects.toThrow(/cancelled/);
     expect(ws.store.trials.size).toBe(before);
   }, 120_000);
