@@ -3,6 +3,7 @@
 // with a message when /usr/bin/chromium is missing.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, existsSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromiumAvailable, startE2E, type E2E } from './harness.ts';
@@ -97,4 +98,51 @@ describe.skipIf(!chromiumAvailable && !required)('app in a real browser', () => 
     await e.shot('05-reopened');
     expect(e.consoleErrors.join("\n")).toBe("");
   }, 60_000);
+
+  it('runs a trial of the pendulum design and shows the metrics, the plots and the Monte Carlo', async () => {
+    const { page } = e;
+    await page.click('[data-step=trials]');
+    await page.waitForSelector('select[name=trial-design] option', { state: 'attached' });
+    await page.fill('input[name=q0]', '0.3');
+    await page.fill('input[name=duration]', '20');
+    await page.fill('input[name=runs]', '6');
+    await page.fill('input[name=mismatch]', '0.1');
+    await page.click('[data-testid=run-trial]');
+    await page.waitForSelector('[data-testid=trial-metrics] tbody tr', { timeout: 90_000 });
+    const names = await page.locator('[data-testid=trial-metrics] tbody tr td:first-child').allInnerTexts();
+    expect(names).toEqual(['design', 'energy-pump', 'open-loop']);
+    // The design settles from 0.3 rad to the 1.2 rad swing; open loop never does.
+    expect(await page.locator('[data-testid=trial-metrics] tr[data-row=design] td').nth(1).innerText()).toBe('yes');
+    expect(await page.locator('[data-testid=trial-metrics] tr[data-row=open-loop] td').nth(2).innerText()).toBe('never');
+    await page.waitForSelector('[data-testid=trial-phase] path.level');
+    await page.waitForSelector('[data-testid=trial-phase] path[data-series="closed loop"]');
+    await page.waitForSelector('[data-testid=trial-energy] path[data-series=H]');
+    await page.waitForSelector('[data-testid=trial-input] path[data-series=u]');
+    await page.waitForSelector('[data-testid=mc-histogram] rect.bin');
+    expect(await page.locator('[data-testid=mc-share]').innerText()).toMatch(/%/);
+    await e.shot('06-trials');
+    expect(e.consoleErrors.join("\n")).toBe("");
+  }, 120_000);
+
+  it('exports the design after the cautions are acknowledged; the C check program compiles and passes', async () => {
+    const { page } = e;
+    const dir = join(mkdtempSync(join(tmpdir(), 'ergostat-e2e-export-')), 'pendulum-hold');
+    await page.click('[data-step=export]');
+    await page.waitForSelector('[data-testid=cautions] li');
+    await page.fill('input[name=export-folder]', dir);
+    await page.fill('input[name=c-name]', 'pendulum_hold');
+    expect(await page.locator('[data-testid=export-write]').isDisabled()).toBe(true);
+    await page.check('[data-testid=ack-cautions]');
+    await page.click('[data-testid=export-write]');
+    await page.waitForSelector('[data-testid=export-result]', { timeout: 60_000 });
+    for (const f of ['pendulum_hold.h', 'pendulum_hold.c', 'pendulum_hold_check.c', 'design.json', 'model.json', 'report.html', 'plots/landscape.svg', 'plots/landscape.png']) {
+      expect(existsSync(join(dir, f)), f).toBe(true);
+    }
+    expect(await page.locator('[data-testid=export-result] tr[data-file$=".csv"]').count()).toBe(1);
+    expect(await page.locator('[data-testid=export-result] tr[data-file$="-phase.svg"]').count()).toBe(1);
+    // The check program built as the README says, then run: it compares the C law with the test vectors.
+    execFileSync('sh', ['-c', 'cc -std=c99 -O2 -Wall -Wextra -Werror *.c -lm -o check && ./check'], { cwd: dir, stdio: 'pipe' });
+    await e.shot('07-export');
+    expect(e.consoleErrors.join("\n")).toBe("");
+  }, 90_000);
 });
