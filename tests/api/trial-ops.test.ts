@@ -15,6 +15,8 @@ import { createHandlers } from '../../src-main/api/handlers.ts';
 import { Workspace } from '../../src-main/api/workspace.ts';
 import { traceFromCsv } from '../../src-main/export/csv.ts';
 import { readDesign } from '../../src-main/design/validate.ts';
+import { serializeModel } from '../../src-main/model/index.ts';
+import { doubleWellModel } from '../engine/plan/fixtures.ts';
 
 const m = 0.35, l = 0.42, g = 9.81;
 const Htrue = (q: number, v: number) => m * g * l * (1 - Math.cos(q)) + 0.5 * m * l * l * v * v;
@@ -102,6 +104,32 @@ describe('trial and export operations', () => {
     await expect(pending).rejects.toThrow(/cancelled/);
     expect(ws.store.trials.size).toBe(before);
   }, 120_000);
+
+  it('runs a well hop: stage switches, the stage column and the final well on the far side of the barrier', async () => {
+    // Double-well Duffing H = v^2/2 - q^2/2 + q^4/4 + 1/4 (tests/engine/plan/fixtures.ts): wells at
+    // q = -1 and q = +1, the barrier at q = 0 with energy 1/4 (calculus on V).
+    const ws = new Workspace();
+    ws.store.models.put({ name: 'duffing', kind: 'energy-model', body: { recording: '', model: JSON.parse(serializeModel({ ...doubleWellModel(), formula: '0.5*v^2 - 0.5*q^2 + 0.25*q^4 + 0.25' })) } });
+    const h = createHandlers(ws);
+    const ctx: CallContext = { signal: new AbortController().signal, progress: () => {} };
+    const call = (name: string, args: unknown) => callOperation(operations, h, name, args, ctx) as Promise<any>;
+    const d = await call('controller.design', { model: 'duffing', mode: 'well-hop', target: { kind: 'energy', value: 0.1 }, toWell: 2, uMax: 0.2, rateHz: 200, inputGain: 1 });
+    expect(d.design.stages.length).toBeGreaterThan(1);
+    const r = await call('trial.run', { design: d.name, q0: -1.05, v0: 0, duration: 60, runs: 2, mismatch: 0.05 });
+    expect(r.outcome.switches.length).toBeGreaterThan(0);
+    expect(r.trace.stage).toBeDefined();
+    expect(r.trace.stage[0]).toBe(1);
+    expect(r.trace.stage[r.trace.stage.length - 1]).toBe(r.outcome.switches[r.outcome.switches.length - 1].to);
+    expect(r.outcome.finalWell).toBe(2);
+    // The last tenth of the run stays right of the barrier at q = 0, below its energy 1/4.
+    const n = r.trace.q.length;
+    for (let k = Math.floor(0.9 * n); k < n; k++) {
+      expect(r.trace.q[k]).toBeGreaterThan(0);
+      expect(r.trace.H[k]).toBeLessThan(0.25);
+    }
+    expect(r.outcome.monteCarlo.workers).toBe(0); // staged designs run their Monte Carlo in-thread
+    expect(r.monteCarloRuns.length).toBe(2);
+  }, 60_000);
 
   it('refuses bad trial settings naming the argument', async () => {
     const h = createHandlers();
