@@ -16,6 +16,14 @@
 // |b| = |g dH/dv| at the well bottom with kinetic energy dE, or the velocity noise's share of b
 // when larger (as in level-hold.ts); loss compensation on every stage whose
 // orbit has a period (<b^2> by meanSquareInputGain), none at rest (<b^2> = 0 there).
+//
+// Known range (issue 4): when the model records the energies its free runs reached
+// (model.coverage, engine/learn/coverage.ts), every barrier the route crosses (the top of the
+// circle for a rotation) must lie within them, or the model has never seen a state over it and
+// the design is refused; the raise stage's margin above a crossed barrier is then allowed. Every
+// other stage level (the final level, a rotation's level) may lie at most COVERAGE_ALLOWANCE (5%)
+// above the recorded top, as in level-hold.ts. Model files without coverage are planned as before,
+// with the range taken from the landscape and the plan, and the check says so.
 import type { EnergyModel, Landscape } from '../engine/learn/index.ts';
 import { compileFormula } from '../engine/formula/index.ts';
 import { meanSquareInputGain } from '../engine/control/index.ts';
@@ -28,7 +36,9 @@ import { SAFETY_CAUTIONS, SAFETY_DEFERENCE } from '../safety.ts';
 import { APP_VERSION } from '../version.ts';
 import { compileDesignEnergy } from './energy.ts';
 import { controllerFromDesign } from './supervisor.ts';
-import { energyFormula } from './level-hold.ts';
+import { COVERAGE_ALLOWANCE, energyFormula } from './level-hold.ts';
+import { coverageEnergyFactor } from '../engine/learn/model.ts';
+import { DesignRefusal } from './refusal.ts';
 import { motionFromEnergy } from './motion.ts';
 import { readDesign } from './validate.ts';
 import { DESIGN_FORMAT, DESIGN_VERSION, type ControllerDesign, type Stage } from './types.ts';
@@ -150,6 +160,57 @@ function typicalB(e: EnergyFunction, g: number, w: WellBounds, dE: number): numb
   return Math.abs(g * grad[1]);
 }
 
+/**
+ * The plan against the energies the recordings reached (see the header): throws a DesignRefusal
+ * naming the barrier or level the model has never seen; otherwise the check's detail, and the
+ * design's validRange. Without coverage, the range comes from the landscape and the plan.
+ */
+function knownRange(model: EnergyModel, land: Landscape, plan: HopPlan, unit: string): { detail: string; validRange: ControllerDesign['model']['validRange'] } {
+  const cov = model.coverage;
+  if (!cov) {
+    return {
+      detail: 'not checked against the recordings: the model file does not record the energy range of its recordings (learned before coverage was recorded; learn again to record it); the range is taken from the landscape and the plan',
+      validRange: { qMin: land.qMin, qMax: land.qMax, energyMin: Math.min(...land.wells.map((w) => w.V)), energyMax: Math.max(plan.finalEnergy, ...plan.stages.map((s) => s.target.energy)) },
+    };
+  }
+  const f = coverageEnergyFactor(model);
+  const eMin = cov.energyMin * f, eMax = cov.energyMax * f;
+  const limit = eMax + COVERAGE_ALLOWANCE * Math.abs(eMax);
+  const reached = `the recordings reached ${fmt(eMin)} .. ${fmt(eMax)}${unit} (0.5th to 99.5th percentile per free run)`;
+  const over = (what: string, E: number, advice: string) => new DesignRefusal(`${what} at H = ${fmt(E)}${unit}, but ${reached}: the model has never seen that energy; ${advice}`);
+  const notes: string[] = [];
+  const raises = new Set<number>();
+  if (plan.kind === 'rotation') {
+    const top = plan.rotation!.top;
+    if (top.V > eMax) throw over('a rotation passes the top of the circle', top.V, 'record a free run over the top (a rotation) and learn again, or choose a hop or a level inside the well');
+    notes.push(`the top of the circle (H = ${fmt(top.V)}) lies inside them`);
+  } else {
+    plan.legs.forEach((leg, h) => {
+      if (leg.highest > eMax) {
+        throw over(`the hop from well ${leg.from} to well ${leg.to} must raise the energy over the barrier`, leg.highest,
+          `record free swings over that barrier (runs that pass from well ${leg.from} to well ${leg.to}) and learn again`);
+      }
+      raises.add(2 * h + 1);
+    });
+    notes.push(`the barrier${plan.legs.length > 1 ? 's' : ''} crossed (highest ${plan.legs.map((l) => fmt(l.highest)).join(', ')}) lie inside them, so the raise stages' margin above ${plan.legs.length > 1 ? 'them' : 'it'} is allowed`);
+  }
+  for (const st of plan.stages) {
+    if (raises.has(st.index)) continue;
+    const E = st.target.energy;
+    if (E > limit * (1 + 1e-12) + 1e-15) {
+      throw new DesignRefusal(`stage ${st.index} (${st.name}) targets H = ${fmt(E)}${unit}, above what the model knows: ${reached}, and a level may lie at most ${COVERAGE_ALLOWANCE * 100}% above that top (${fmt(limit)}${unit}); record swings up to that level, or choose a lower target`);
+    }
+  }
+  notes.push(`every other stage level is at most ${fmt(limit)}${unit} (${COVERAGE_ALLOWANCE * 100}% above the recorded top)`);
+  // Angles: at energies over the highest barrier every angle is reached (rotations).
+  const overTop = land.periodic && land.barriers.length > 0 && eMax >= Math.max(...land.barriers.map((b) => b.V));
+  const wide = overTop || !(cov.qMax > cov.qMin);
+  return {
+    detail: `${reached}; ${notes.join('; ')}`,
+    validRange: { qMin: wide ? land.qMin : cov.qMin, qMax: wide ? land.qMax : cov.qMax, energyMin: eMin, energyMax: eMax },
+  };
+}
+
 function positive(x: unknown, name: string): number {
   if (typeof x !== 'number' || !Number.isFinite(x) || !(x > 0)) throw new RangeError(`${name}: expected a positive finite number, got ${String(x)}`);
   return x;
@@ -195,6 +256,8 @@ export function designWellHopDetailed(model: EnergyModel, options: WellHopOption
       captureBand: options.captureBand, settleFraction: options.settleFraction, mode: options.route, direction: options.direction,
     });
   const plan0 = planFor(margin0);
+  const unit = parts.unit ? ` ${parts.unit}` : '';
+  const range = knownRange(model, land, plan0, unit);
   const startWell = plan0.kind === 'rotation' ? plan0.rotation!.start : plan0.legs[0].start;
 
   // Energy scale of the move: the smallest barrier height met (or the top, for rotations).
@@ -241,7 +304,7 @@ export function designWellHopDetailed(model: EnergyModel, options: WellHopOption
         units: model.units,
         lambda: model.lambda,
         acceleration: parts.acceleration,
-        validRange: { qMin: land.qMin, qMax: land.qMax, energyMin: Math.min(...land.wells.map((w) => w.V)), energyMax: Math.max(plan.finalEnergy, ...plan.stages.map((s) => s.target.energy)) },
+        validRange: model.coverage ? { ...range.validRange } : knownRange(model, land, plan, unit).validRange,
         wells: land.wells.map((w) => ({ index: w.index, q: w.q, energy: w.V })),
         barriers: land.barriers.map((b) => ({ q: b.q, energy: b.V, between: [b.between[0], b.between[1]] as [number, number] })),
       },
@@ -260,11 +323,11 @@ export function designWellHopDetailed(model: EnergyModel, options: WellHopOption
 
   const first = documentFor(uMax0, margin0);
   const design = first.design;
-  const unit = parts.unit ? ` ${parts.unit}` : '';
   const route = plan0.kind === 'rotation'
     ? `rotation from well ${from} at ${fmt(options.rotation!.speed)} rad/s over the top (H* = ${fmt(plan0.rotation!.energy)})${plan0.rotation!.turns ? `, back to rest after ${plan0.rotation!.turns} revolution(s)` : ''}`
     : `wells ${[plan0.legs[0].from, ...plan0.legs.map((l) => l.to)].join(' -> ')}, barriers ${plan0.legs.map((l) => fmt(l.highest)).join(', ')}, final level ${fmt(plan0.finalEnergy)}`;
   design.checks.push({ name: 'route', ok: true, detail: route });
+  design.checks.push({ name: 'target in range', ok: true, detail: range.detail });
   for (const n of notes) design.checks.push({ name: 'loss compensation', ok: false, detail: n });
 
   let check: GridCheck | null = null, uSearch: SearchResult | null = null, mSearch: SearchResult | null = null;

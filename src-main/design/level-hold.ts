@@ -5,6 +5,13 @@
 //   V(q) = H(q, 0): the turning-point energy, design.md "Wells and hops"); or at rest (H* = the
 //   well-bottom energy). The well is the one nearest the centre of the recorded range unless given.
 //   Targets outside what the model knows are refused with the reason and the range (DesignRefusal).
+// - Known range: the energies the recordings reached (model.coverage, robust extremes of H over
+//   the free runs, engine/learn/coverage.ts). A target may lie up to COVERAGE_ALLOWANCE (5%) above
+//   the recorded top: H is zero at the deepest well, so that is 5% of the recorded height, about
+//   what an energy model fitted on the recorded band extrapolates without visible error (our
+//   choice); beyond it the design is refused. Model files without coverage (learned before it was
+//   recorded) keep the range derived from the landscape: up to the highest barrier for angles,
+//   the lower of V at the recorded ends for displacements; the check's detail says which applies.
 // - Units: the law computes u in the input's physical unit, so a model per unit mass ('J/kg', no
 //   mass, no forced run) is refused unless a mass (H is rescaled to joules, g = 1/m) or an input
 //   gain g (acceleration per unit input) is given.
@@ -28,7 +35,7 @@
 //   below that RMS cannot hold the level at all; the check reports it (ok = false), never hides it.
 import type { EnergyModel } from '../engine/learn/index.ts';
 import { modelEvaluator } from '../engine/learn/index.ts';
-import { termFromSpec } from '../engine/learn/model.ts';
+import { coverageEnergyFactor, termFromSpec } from '../engine/learn/model.ts';
 import { termLabel } from '../engine/learn/library.ts';
 import { meanSquareInputGain } from '../engine/control/index.ts';
 import { SAFETY_CAUTIONS, SAFETY_DEFERENCE } from '../safety.ts';
@@ -68,6 +75,9 @@ export interface LevelHoldOptions {
 
 /** The default law reaches u_ref (u_max when given) at an energy error of this share of the level above the well bottom. */
 export const SATURATION_BAND = 0.15;
+
+/** A target may lie this share of the recorded top energy above it (models with coverage). */
+export const COVERAGE_ALLOWANCE = 0.05;
 
 const fmt = (x: number) => (Number.isFinite(x) ? Number(x.toPrecision(4)).toString() : String(x));
 
@@ -111,16 +121,32 @@ export function designLevelHold(model: EnergyModel, options: LevelHoldOptions): 
   if (!ls || ls.wells.length === 0) throw new DesignRefusal('the model has no potential well (its landscape V(q) = H(q, 0) has no minimum on the recorded range): there is no level to hold');
   const wells = ls.wells.map((w) => ({ index: w.index, q: w.q, energy: w.V * factor }));
   const barriers = ls.barriers.map((b) => ({ q: b.q, energy: b.V * factor, between: [b.between[0], b.between[1]] as [number, number] }));
-  const energyMin = Math.min(...wells.map((w) => w.energy));
-  let energyMax: number, rangeNote: string;
-  if (ls.periodic) {
-    energyMax = barriers.length ? Math.max(...barriers.map((b) => b.energy)) : maxOnGrid(V, -Math.PI, Math.PI);
-    rangeNote = 'librations up to the highest barrier (the model file does not record the energy range of its recordings; rotations are not covered)';
+  const cov = model.coverage;
+  let energyMin: number, energyMax: number, rangeNote: string, validRange: ControllerDesign['model']['validRange'];
+  /** Highest target accepted: the top of the known range, plus the allowance when it was recorded. */
+  let limit: number;
+  if (cov) {
+    // Energies the recordings reached, in this design's units (the model's, times the mass factor).
+    const f = coverageEnergyFactor(model) * factor;
+    energyMin = cov.energyMin * f; energyMax = cov.energyMax * f;
+    limit = energyMax + COVERAGE_ALLOWANCE * Math.abs(energyMax);
+    const overTop = ls.periodic && barriers.length > 0 && energyMax >= Math.max(...barriers.map((b) => b.energy));
+    const [qMin, qMax] = overTop || !(cov.qMax > cov.qMin) ? [ls.qMin, ls.qMax] : [cov.qMin, cov.qMax];
+    validRange = { qMin, qMax, energyMin, energyMax };
+    rangeNote = `the energies the recordings reached, 0.5th to 99.5th percentile per free run${overTop ? ', over the top' : ''}; targets up to ${COVERAGE_ALLOWANCE * 100}% above the top, ${fmt(limit)} ${units}, are accepted`;
   } else {
-    energyMax = Math.min(V(ls.qMin), V(ls.qMax));
-    rangeNote = `levels whose free swing stays inside the recorded positions ${fmt(ls.qMin)} .. ${fmt(ls.qMax)}`;
+    energyMin = Math.min(...wells.map((w) => w.energy));
+    const old = 'derived from the landscape: the model file does not record the energy range of its recordings (learned before coverage was recorded; learn again to record it)';
+    if (ls.periodic) {
+      energyMax = barriers.length ? Math.max(...barriers.map((b) => b.energy)) : maxOnGrid(V, -Math.PI, Math.PI);
+      rangeNote = `librations up to the highest barrier, ${old}; rotations are not covered`;
+    } else {
+      energyMax = Math.min(V(ls.qMin), V(ls.qMax));
+      rangeNote = `levels whose free swing stays inside the recorded positions ${fmt(ls.qMin)} .. ${fmt(ls.qMax)}, ${old}`;
+    }
+    limit = energyMax;
+    validRange = { qMin: ls.qMin, qMax: ls.qMax, energyMin, energyMax };
   }
-  const validRange = { qMin: ls.qMin, qMax: ls.qMax, energyMin, energyMax };
   const rangeText = `${fmt(energyMin)} .. ${fmt(energyMax)} ${units} (${rangeNote})`;
 
   // The well.
@@ -154,13 +180,19 @@ export function designLevelHold(model: EnergyModel, options: LevelHoldOptions): 
     target = { kind: 'at-rest', well: well.index, energy: well.energy };
   }
   const Hstar = target.energy;
-  if (Hstar > energyMax * (1 + 1e-12) + 1e-15) {
+  if (Hstar > limit * (1 + 1e-12) + 1e-15) {
+    if (cov) {
+      const what = target.kind === 'amplitude' ? ` (a swing of amplitude ${fmt(target.amplitude)} about well ${well.index})` : '';
+      throw new DesignRefusal(`the target energy ${fmt(Hstar)} ${units}${what} is above what the model knows: the recordings reached ${fmt(energyMin)} .. ${fmt(energyMax)} ${units} `
+        + `(0.5th to 99.5th percentile per free run), and a target may lie at most ${COVERAGE_ALLOWANCE * 100}% above that top (${fmt(limit)} ${units}); record swings up to that level, or choose a lower target`);
+    }
     throw new DesignRefusal(`the target energy ${fmt(Hstar)} ${units} is above what the model knows: it covers ${rangeText}; lower the target or record larger swings`);
   }
   if (Hstar < well.energy - 1e-12 * Math.max(1, Math.abs(well.energy))) {
     throw new DesignRefusal(`the target energy ${fmt(Hstar)} ${units} is below the bottom of well ${well.index} (${fmt(well.energy)} ${units}): no state of that well has it; the model covers ${rangeText}`);
   }
-  checks.push({ name: 'target in range', ok: true, detail: `H* = ${fmt(Hstar)} ${units} in well ${well.index} (bottom ${fmt(well.energy)} at q = ${fmt(well.q)}); the model covers ${rangeText}` });
+  const beyond = cov && Hstar > energyMax ? ` (${fmt((100 * (Hstar - energyMax)) / Math.abs(energyMax))}% above the recorded top, inside the allowance)` : '';
+  checks.push({ name: 'target in range', ok: true, detail: `H* = ${fmt(Hstar)} ${units} in well ${well.index} (bottom ${fmt(well.energy)} at q = ${fmt(well.q)})${beyond}; the model covers ${rangeText}` });
 
   // Equations of motion from H, the orbit at H*, the reference orbit.
   const qs = sampleQs(ls.qMin, ls.qMax, wells.map((w) => w.q));

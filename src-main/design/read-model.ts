@@ -79,11 +79,22 @@ export function readEnergyModel(json: unknown, where: string): EnergyModel {
       (o.between as unknown[]).forEach((k, s) => int(k, `landscape.barriers[${i}].between[${s}]`, 1, Math.max(1, nw)));
     });
   }
+  // coverage (optional; absent in files learned before it was recorded, null read as absent).
+  if (json.coverage !== undefined && json.coverage !== null) {
+    const c = obj(json.coverage, 'coverage');
+    const [eMin, eMax, qMin, qMax] = (['energyMin', 'energyMax', 'qMin', 'qMax'] as const).map((k) => num(c[k], `coverage.${k}`));
+    if (!(eMax >= eMin)) fail('coverage.energyMax', `must be at least coverage.energyMin (${eMin}), got ${eMax}`);
+    if (!(qMax >= qMin)) fail('coverage.qMax', `must be at least coverage.qMin (${qMin}), got ${qMax}`);
+    if (!(num(c.vMaxAbs, 'coverage.vMaxAbs') >= 0)) fail('coverage.vMaxAbs', `expected a speed >= 0, got ${show(c.vMaxAbs)}`);
+    if (!(num(c.joulesPerModelUnit, 'coverage.joulesPerModelUnit') > 0)) fail('coverage.joulesPerModelUnit', `expected a positive scale, got ${show(c.joulesPerModelUnit)}`);
+  }
   const st = obj(json.structure, 'structure');
   if (typeof st.separable !== 'boolean') fail('structure.separable', 'expected true or false');
   const metrics = obj(json.metrics, 'metrics');
   if (metrics.noiseSigma !== null && typeof metrics.noiseSigma !== 'number') fail('metrics.noiseSigma', 'expected a number');
   num(metrics.dt, 'metrics.dt');
   int(metrics.halfWindow, 'metrics.halfWindow', 0, 1_000_000);
-  return structuredClone(json) as unknown as EnergyModel;
+  const copy = structuredClone(json);
+  if (copy.coverage === null) delete copy.coverage;
+  return copy as unknown as EnergyModel;
 }

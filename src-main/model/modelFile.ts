@@ -117,6 +117,19 @@ export function validateModel(json: unknown, file = 'model'): EnergyModel {
       }),
     };
   }
+  // Optional (files learned before it was recorded have none); null is read as absent.
+  let coverage: EnergyModel['coverage'];
+  if (o.coverage !== undefined && o.coverage !== null) {
+    const c = r.obj(o.coverage, 'coverage');
+    coverage = {
+      energyMin: r.num(c.energyMin, 'coverage.energyMin'), energyMax: r.num(c.energyMax, 'coverage.energyMax'),
+      qMin: r.num(c.qMin, 'coverage.qMin'), qMax: r.num(c.qMax, 'coverage.qMax'),
+      vMaxAbs: r.num(c.vMaxAbs, 'coverage.vMaxAbs', { min: 0 }),
+      joulesPerModelUnit: r.num(c.joulesPerModelUnit, 'coverage.joulesPerModelUnit', { min: Number.MIN_VALUE }),
+    };
+    if (!(coverage.energyMax >= coverage.energyMin)) r.fail('coverage.energyMax', `must be at least coverage.energyMin (${coverage.energyMin}), got ${coverage.energyMax}`);
+    if (!(coverage.qMax >= coverage.qMin)) r.fail('coverage.qMax', `must be at least coverage.qMin (${coverage.qMin}), got ${coverage.qMax}`);
+  }
   const df = me.derivativeForm === null ? null : (() => {
     const x = r.obj(me.derivativeForm, 'metrics.derivativeForm');
     return { lambda: nn(x.lambda, 'metrics.derivativeForm.lambda'), mu1: nn(x.mu1, 'metrics.derivativeForm.mu1'), agreement: nn(x.agreement, 'metrics.derivativeForm.agreement') };
@@ -155,6 +168,7 @@ export function validateModel(json: unknown, file = 'model'): EnergyModel {
       const f = `replay[${i}]`, y = r.obj(x, f);
       return { run: r.str(y.run, `${f}.run`, 1000), seconds: r.num(y.seconds, `${f}.seconds`), rmsError: nn(y.rmsError, `${f}.rmsError`), relativeError: nn(y.relativeError, `${f}.relativeError`) };
     }),
+    ...(coverage ? { coverage } : {}),
     metrics: {
       samples: r.num(me.samples, 'metrics.samples', { integer: true, min: 0 }), runs: r.num(me.runs, 'metrics.runs', { integer: true, min: 0 }),
       freeRuns: r.num(me.freeRuns, 'metrics.freeRuns', { integer: true, min: 0 }), forcedRuns: r.num(me.forcedRuns, 'metrics.forcedRuns', { integer: true, min: 0 }),

@@ -9,17 +9,19 @@
 //  3. lambda by a 1-D search on mu_1(lambda), the eigenfunction pinned to vanish at the well;
 //  4. sparsity by sequential thresholding on the held-out Pareto front;
 //  5. derivative-form cross-check; normalisation; landscape; structure check and replay;
-//     forced-run calibration; a verdict that refuses a bad fit.
+//     forced-run calibration; the energy range the free runs covered (coverage.ts); a verdict
+//     that refuses a bad fit.
 import type { Recording } from '../types.ts';
 import { accumulateDerivativeGram, addDerivativeGram, solveDerivativeForm, type DerivativeGram } from './derivativeForm.ts';
 import { fitInputGain } from './forcedScale.ts';
+import { recordedCoverage } from './coverage.ts';
 import { accumulateGrams, sumGramSets, type GramSet } from './gram.ts';
 import { heldOutMu } from './heldOut.ts';
 import { findLandscape } from './landscape.ts';
 import { buildLibrary, formulaOf, termGrad, termValue, type Term } from './library.ts';
 import { estimateNoise, logDecrement } from '../signal/index.ts';
 import { minimize1d } from './minimize1d.ts';
-import { specFromTerm, type CandidateReport, type EnergyModel, type Landscape, type ReplayReport, type Verdict, type VerdictCode } from './model.ts';
+import { modelEvaluator, specFromTerm, type CandidateReport, type EnergyModel, type Landscape, type ReplayReport, type Verdict, type VerdictCode } from './model.ts';
 import { dominantPeriod } from './period.ts';
 import { prepareRecording, type PreparedRun } from './prepare.ts';
 import { sparsify } from './sparsify.ts';
@@ -471,11 +473,16 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
     z.sort((a, b) => a - b);
     return z.length ? z[z.length >> 1] : null;
   })();
+  // The range the free runs covered: H on the same Savitzky–Golay states the fit used, robust
+  // extremes per run (0.5th / 99.5th percentiles), then over the runs (coverage.ts).
+  const finalCoef = Array.from(coefficients, (x, j) => (sp.active.includes(j) ? x : 0));
+  const evFinal = modelEvaluator({ library: { terms: terms.map(specFromTerm) }, coefficients: finalCoef, offset });
+  const coverage = recordedCoverage(states, evFinal.H, { periodic: angle, trim: pick.window, joulesPerModelUnit: scale });
   const model: EnergyModel = {
     format: 'ergostat-energy-model', version: 1, status: 'ok', verdict: verdict('ok', 'a lightly damped conserved energy was found'),
     coordinate: rec.coordinate,
     library: { degree: pick.degree, harmonics: angle ? (opts.harmonics ?? maxDeg) : null, evenV: !opts.oddV, terms: terms.map(specFromTerm) },
-    coefficients: Array.from(coefficients, (x, j) => (sp.active.includes(j) ? x : 0)),
+    coefficients: finalCoef,
     offset,
     formula: formulaOf(terms, coefficients, offset),
     units: mass !== null ? 'J' : 'J/kg',
@@ -488,6 +495,7 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
     landscape,
     structure: { separable, nonSeparableShare: share, massFormula: separable ? formulaOf(mTerms, mCoef, mConst) : null, potentialFormula: separable ? formulaOf(vTerms, vCoef, offset) : null },
     replay,
+    ...(coverage ? { coverage } : {}),
     metrics: {
       samples: prep.samples, runs: rec.runs.length, freeRuns: free.length, forcedRuns: prep.forced.length, dt,
       noiseSigma: sigma, signalToNoise: snr,
@@ -509,7 +517,7 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
     // The rejected candidate is not handed out as a result: only its diagnostics stay (metrics, damping).
     model.status = 'no-energy'; model.verdict = v;
     model.coefficients = model.coefficients.map(() => 0); model.offset = 0; model.formula = '';
-    model.landscape = null; model.replay = [];
+    model.landscape = null; model.replay = []; delete model.coverage;
     model.structure = { separable: false, nonSeparableShare: NaN, massFormula: null, potentialFormula: null };
   }
   progress(1, 'done');

@@ -21,6 +21,15 @@ export interface CandidateReport { halfWindow: number; lagsSeconds: number[]; de
 export interface ParetoPoint { threshold: number; terms: number; mu: number; heldOut: number }
 export interface ReplayReport { run: string; seconds: number; rmsError: number; relativeError: number }
 
+/**
+ * What the free runs covered, on the Savitzky–Golay states the fit used (coverage.ts): robust
+ * extremes (the 0.5th and 99.5th percentiles per run, then the lowest and highest over the runs).
+ * Energies in the model's units as learned, when scale.joulesPerModelUnit was `joulesPerModelUnit`;
+ * a tool that rescales H keeps them valid by the ratio of the two (coverageEnergyFactor).
+ * Angles: q wrapped to [-pi, pi) before the percentiles.
+ */
+export interface Coverage { energyMin: number; energyMax: number; qMin: number; qMax: number; vMaxAbs: number; joulesPerModelUnit: number }
+
 export interface EnergyModel {
   format: 'ergostat-energy-model';
   version: 1;
@@ -39,6 +48,8 @@ export interface EnergyModel {
   landscape: Landscape | null;
   structure: { separable: boolean; nonSeparableShare: number; massFormula: string | null; potentialFormula: string | null };
   replay: ReplayReport[];
+  /** The range the recordings covered; absent in files written before it was recorded (and when status is 'no-energy'). */
+  coverage?: Coverage;
   metrics: {
     samples: number; runs: number; freeRuns: number; forcedRuns: number; dt: number;
     noiseSigma: number; signalToNoise: number;
@@ -49,6 +60,14 @@ export interface EnergyModel {
     pareto: ParetoPoint[];
     sparsityThreshold: number;
   };
+}
+
+/** Factor from the coverage's energies to the model's current units (1 unless H was rescaled since learning). */
+export function coverageEnergyFactor(m: Pick<EnergyModel, 'scale'> & { coverage?: Coverage }): number {
+  const c = m.coverage;
+  if (!c) return 1;
+  const now = m.scale.joulesPerModelUnit;
+  return Number.isFinite(now) && now > 0 && c.joulesPerModelUnit > 0 ? now / c.joulesPerModelUnit : 1;
 }
 
 export function termFromSpec(s: TermSpec): Term {
@@ -63,7 +82,7 @@ export function specFromTerm(t: Term): TermSpec {
 }
 
 /** Evaluation closures over the model's terms (user terms compiled once). */
-export function modelEvaluator(m: Pick<EnergyModel, 'library' | 'coefficients' | 'offset'>) {
+export function modelEvaluator(m: { library: { terms: TermSpec[] }; coefficients: number[]; offset: number }) {
   const terms = m.library.terms.map(termFromSpec);
   const idx: number[] = [];
   for (let j = 0; j < terms.length; j++) if (m.coefficients[j] !== 0) idx.push(j);
