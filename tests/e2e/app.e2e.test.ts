@@ -145,4 +145,16 @@ describe.skipIf(!chromiumAvailable && !required)('app in a real browser', () => 
     await e.shot('07-export');
     expect(e.consoleErrors.join("\n")).toBe("");
   }, 90_000);
+
+  it('cancels a long Monte Carlo from the Trials screen', async () => {
+    const { page } = e;
+    await page.click('[data-step=trials]');
+    await page.fill('input[name=runs]', '5000');
+    await page.click('[data-testid=run-trial]');
+    await page.waitForSelector('[data-testid=trial-progress] >> text=/monte carlo: [1-9]/', { timeout: 60_000 });
+    await page.click('[data-testid=cancel-trial]');
+    await page.waitForSelector('text=Trial cancelled.', { timeout: 10_000 });
+    expect(await page.locator('[data-testid=run-trial]').isEnabled()).toBe(true);
+    expect(e.consoleErrors.join("\n")).toBe("");
+  }, 90_000);
 });
