@@ -182,7 +182,7 @@ export function designLevelHold(model: EnergyModel, options: LevelHoldOptions): 
   const Hstar = target.energy;
   if (Hstar > limit * (1 + 1e-12) + 1e-15) {
     if (cov) {
-      const what = target.kind === 'amplitude' ? ` (a swing of amplitude ${fmt(target.amplitude)} about well ${well.index})` : '';
+      const what = target.kind === 'amplitude' ? ` (a swing of amplitude ${fmt(target.amplitude)}${angle ? ' rad' : ''} about well ${well.index})` : '';
       throw new DesignRefusal(`the target energy ${fmt(Hstar)} ${units}${what} is above what the model knows: the recordings reached ${fmt(energyMin)} .. ${fmt(energyMax)} ${units} `
         + `(0.5th to 99.5th percentile per free run), and a target may lie at most ${COVERAGE_ALLOWANCE * 100}% above that top (${fmt(limit)} ${units}); record swings up to that level, or choose a lower target`);
     }

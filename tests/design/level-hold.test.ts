@@ -89,6 +89,54 @@ describe('designLevelHold', () => {
     expect(refusal(() => designLevelHold(duffingModel(), { target: { kind: 'at-rest', well: 3 } }))).toMatch(/well 3 does not exist/);
   });
 
+  it('with a recorded range, refuses targets more than 5% above its top and says what to do', () => {
+    // The pendulum recorded up to 40 degrees: top (g/l)(1 - cos 40 deg) per unit inertia (elementary
+    // mechanics), as engine/learn would record it; the design's H is in joules with inertia I.
+    const model = pendulumModel();
+    const top = W2 * (1 - Math.cos(40 * deg));
+    model.coverage = { energyMin: 0.1 * top, energyMax: top, qMin: -40 * deg, qMax: 40 * deg, vMaxAbs: Math.sqrt(2 * top), joulesPerModelUnit: 1 };
+    const J = I * top;
+    // 4% above the top is inside the 5% allowance; the check says so.
+    const ok = designLevelHold(model, { target: { kind: 'energy', energy: 1.04 * J }, mass: I });
+    expect(ok.stages[0].target.energy).toBe(1.04 * J);
+    expect(ok.checks.find((c) => c.name === 'target in range')!.detail).toMatch(/4% above the recorded top, inside the allowance/);
+    expect(ok.model.validRange).toEqual({ qMin: -40 * deg, qMax: 40 * deg, energyMin: 0.1 * J, energyMax: J });
+    // 6% above is refused, with the target, the recorded range and the advice.
+    const msg = refusal(() => designLevelHold(model, { target: { kind: 'energy', energy: 1.06 * J }, mass: I }));
+    expect(msg).toContain(`the target energy ${Number((1.06 * J).toPrecision(4))} J is above what the model knows`);
+    expect(msg).toContain(`the recordings reached ${Number((0.1 * J).toPrecision(4))} .. ${Number(J.toPrecision(4))} J`);
+    expect(msg).toContain(`(${Number((1.05 * J).toPrecision(4))} J)`);
+    expect(msg).toMatch(/record swings up to that level, or choose a lower target/);
+    // A 120 degree swing is far above (the old landscape range would have let it through up to the top).
+    expect(refusal(() => designLevelHold(model, { target: { kind: 'amplitude', amplitude: 120 * deg }, mass: I }))).toMatch(/a swing of amplitude 2\.094 rad about well 1\) is above what the model knows/);
+    // At rest stays possible: the well bottom is below the recorded range, not above it.
+    expect(designLevelHold(model, { target: { kind: 'at-rest' }, mass: I }).stages[0].target.energy).toBe(0);
+  });
+
+  it('rescales the recorded range with H: a calibrated model, another mass, a model rescaled since learning', () => {
+    const top = W2 * (1 - Math.cos(40 * deg));
+    const cov = { energyMin: 0, energyMax: top, qMin: -1, qMax: 1, vMaxAbs: 1, joulesPerModelUnit: 1 };
+    // Learned per unit inertia, inertia 2 I given to the designer: range x 2 I.
+    const a = pendulumModel();
+    a.coverage = { ...cov };
+    expect(designLevelHold(a, { target: { kind: 'at-rest' }, mass: 2 * I }).model.validRange.energyMax).toBeCloseTo(2 * I * top, 14);
+    // Learned with inertia I (H and coverage in joules), the designer given 3 I: range x 3.
+    const b = pendulumModel(I);
+    b.coverage = { ...cov, energyMax: I * top, joulesPerModelUnit: I };
+    expect(designLevelHold(b, { target: { kind: 'at-rest' }, mass: 3 * I }).model.validRange.energyMax).toBeCloseTo(3 * I * top, 14);
+    // H rescaled by a tool after learning (per unit inertia -> inertia I, scale.joulesPerModelUnit updated, the coverage left as learned).
+    const c = pendulumModel(I);
+    c.coverage = { ...cov };
+    expect(designLevelHold(c, { target: { kind: 'at-rest' } }).model.validRange.energyMax).toBeCloseTo(I * top, 14);
+  });
+
+  it('keeps the landscape-derived range for a model file without a recorded range, and says so', () => {
+    // A 120 degree swing is below the barrier 2 m g l: accepted, as before the range was recorded.
+    const d = designLevelHold(pendulumModel(), { target: { kind: 'amplitude', amplitude: 120 * deg }, mass: I });
+    expect(d.model.validRange).toEqual({ qMin: -Math.PI, qMax: Math.PI, energyMin: 0, energyMax: 2 * MGL });
+    expect(d.checks.find((c) => c.name === 'target in range')!.detail).toMatch(/derived from the landscape: the model file does not record the energy range of its recordings/);
+  });
+
   it('refuses an uncalibrated model without a mass or an input gain, and accepts either', () => {
     const msg = refusal(() => designLevelHold(pendulumModel(), { target: { kind: 'energy', energy: 1 } }));
     expect(msg).toMatch(/not calibrated/);

@@ -84,6 +84,31 @@ describe('learnEnergy on simulated position-only recordings', () => {
     expect(Math.abs(m.damping.lambdaDerivativeForm! - m.lambda) / Math.abs(m.lambda)).toBeLessThan(0.2);
   });
 
+  it('records the range the recordings covered: a pendulum swung to 30 degrees reaches m g l (1 - cos 30 deg)', () => {
+    // Pendulum m = 0.5 kg, l = 0.42 m (references.md §5), inertia given: H in joules. The largest run
+    // starts at rest at 30 degrees, so its energy is m g l (1 - cos 30 deg) (elementary mechanics),
+    // its turning points +-30 degrees and its top speed at the bottom sqrt(2 (g/l) (1 - cos 30 deg)).
+    const m = 0.5, l = 0.42, g = 9.81, I = m * l * l, deg = Math.PI / 180;
+    const sim = simulate({
+      accel: (q, v) => -(g / l) * Math.sin(q) - 0.02 * v, inits: [[30 * deg, 0], [-22 * deg, 0], [15 * deg, 0.3], [-8 * deg, -0.5], [26 * deg, 0]],
+      dt: 0.005, seconds: 10, noise: 0.002, bits: 12, seed: 21, angle: true,
+    });
+    const model = learnEnergy(sim.recording, { mass: I });
+    expect(model.status).toBe('ok');
+    const c = model.coverage!;
+    const top = m * g * l * (1 - Math.cos(30 * deg));
+    expect(Math.abs(c.energyMax / top - 1)).toBeLessThan(0.02);
+    // The bottom of the range is the smallest run (8 degrees, pushed at 0.5 rad/s) at its end: with
+    // viscous damping c, dE/dt = -c I v^2 averages to -c E over a small swing, so E(10 s) = E0 exp(-10 c)
+    // (elementary mechanics, small-amplitude averaging).
+    const smallest = m * g * l * (1 - Math.cos(8 * deg)) + I * 0.5 ** 2 / 2;
+    expect(Math.abs(c.energyMin / (smallest * Math.exp(-0.02 * 10)) - 1)).toBeLessThan(0.03);
+    expect(Math.abs(c.qMax / (30 * deg) - 1)).toBeLessThan(0.05);
+    expect(Math.abs(c.qMin / (-30 * deg) - 1)).toBeLessThan(0.05);
+    expect(Math.abs(c.vMaxAbs / Math.sqrt((2 * g / l) * (1 - Math.cos(30 * deg))) - 1)).toBeLessThan(0.03);
+    expect(c.joulesPerModelUnit).toBe(model.scale.joulesPerModelUnit);
+  });
+
   it('gives the "no lightly damped energy" verdict for zeta = 0.4', () => {
     // Linear oscillator with zeta = 0.4: an energy-like eigenfunction exists but decays at 2 zeta omega_n.
     const w = 5, zeta = 0.4;
@@ -93,6 +118,7 @@ describe('learnEnergy on simulated position-only recordings', () => {
     expect(m.status).toBe('no-energy');
     expect(m.verdict.code).toBe('heavy-damping');
     expect(m.verdict.reason).toMatch(/no lightly damped energy/);
+    expect(m.coverage).toBeUndefined(); // a rejected fit records no range
     expect(() => toEnergyFunction(m)).toThrow(/no conserved energy/);
   });
 
