@@ -7,7 +7,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { ControllerDesign } from '../design/types.ts';
 import { compileDesignEnergy } from '../design/energy.ts';
-import { finalStage } from '../design/run-trial.ts';
+import { finalStage } from '../design/final-stage.ts';
 import type { EnergyModel } from '../engine/learn/index.ts';
 import { trialMetrics, type Trace, type BaselineRow } from '../engine/trial/index.ts';
 import {

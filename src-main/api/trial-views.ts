@@ -4,7 +4,9 @@
 // outcome JSON, traces as Float64) written and read back.
 import type { ControllerDesign } from '../design/types.ts';
 import { compileDesignEnergy } from '../design/energy.ts';
-import { finalStage, type DesignTrialResult, type TrialSettings } from '../design/run-trial.ts';
+import { finalStage } from '../design/final-stage.ts';
+import type { DesignTrialResult } from '../design/run-trial.ts';
+import type { TrialSettings } from '../design/trial-settings.ts';
 import type { Trace } from '../engine/trial/index.ts';
 import type { TrialEntry, JsonObject } from '../store/index.ts';
 import type { EnergyGrid, TrialDetail, TrialTrace, TrialOutcomeJson } from './results.ts';
