@@ -164,6 +164,7 @@ function typicalB(e: EnergyFunction, g: number, w: WellBounds, dE: number): numb
  * The plan against the energies the recordings reached (see the header): throws a DesignRefusal
  * naming the barrier or level the model has never seen; otherwise the check's detail, and the
  * design's validRange. Without coverage, the range comes from the landscape and the plan.
+ * `unit` is the energy unit as printed (' J'), or ''.
  */
 function knownRange(model: EnergyModel, land: Landscape, plan: HopPlan, unit: string): { detail: string; validRange: ControllerDesign['model']['validRange'] } {
   const cov = model.coverage;
@@ -257,7 +258,7 @@ export function designWellHopDetailed(model: EnergyModel, options: WellHopOption
     });
   const plan0 = planFor(margin0);
   const unit = parts.unit ? ` ${parts.unit}` : '';
-  const range = knownRange(model, land, plan0, unit);
+  const range = knownRange(model, land, plan0, ` ${model.units}`);
   const startWell = plan0.kind === 'rotation' ? plan0.rotation!.start : plan0.legs[0].start;
 
   // Energy scale of the move: the smallest barrier height met (or the top, for rotations).
@@ -304,7 +305,7 @@ export function designWellHopDetailed(model: EnergyModel, options: WellHopOption
         units: model.units,
         lambda: model.lambda,
         acceleration: parts.acceleration,
-        validRange: model.coverage ? { ...range.validRange } : knownRange(model, land, plan, unit).validRange,
+        validRange: model.coverage ? { ...range.validRange } : knownRange(model, land, plan, '').validRange,
         wells: land.wells.map((w) => ({ index: w.index, q: w.q, energy: w.V })),
         barriers: land.barriers.map((b) => ({ q: b.q, energy: b.V, between: [b.between[0], b.between[1]] as [number, number] })),
       },

@@ -13,6 +13,7 @@ import { simulate } from '../../src-main/engine/trial/simulate.ts';
 import { Pcg32 } from '../../src-main/engine/signal/random.ts';
 import type { TrialPlant } from '../../src-main/engine/trial/types.ts';
 import type { ControllerDesign } from '../../src-main/design/types.ts';
+import { DesignRefusal } from '../../src-main/design/refusal.ts';
 import { analyticModel, doubleWellModel, pendulumModel } from '../engine/plan/fixtures.ts';
 
 /** One trial of a design on a plant from (q0, v0): the trace, the supervisor's switch log. */
@@ -273,6 +274,55 @@ describe('an infeasible hop (u_max too small)', () => {
     expect(m).toBeGreaterThan(0);
     expect(m).toBeLessThan(0.3);
     expect(res.design.checks.find((c) => c.name === 'feasibility')!.detail).toMatch(/at u_max = 0\.05 N a margin of [\d.]+ works \(found by bisection, \d+ simulations\)/);
+  });
+});
+
+describe('designWellHop against the energy range the recordings covered', () => {
+  // Double well a = b = 1: wells at +-1 with V = 0, barrier 1/4 at q = 0 (references.md, Duffing double well).
+  const withCoverage = (energyMax: number) => {
+    const m = doubleWellModel();
+    m.coverage = { energyMin: 0.02, energyMax, qMin: -1.6, qMax: 1.6, vMaxAbs: 0.8, joulesPerModelUnit: 1 };
+    return m;
+  };
+  const refused = (f: () => unknown): string => {
+    try { f(); } catch (e) { expect(e).toBeInstanceOf(DesignRefusal); return (e as Error).message; }
+    throw new Error('expected a refusal');
+  };
+
+  it('refuses a hop over a barrier the recordings never crossed, naming the barrier and the range', () => {
+    const msg = refused(() => designWellHop(withCoverage(0.2), { fromWell: 1, toWell: 2, uMax: 0.2, feasibility: false }));
+    expect(msg).toBe('the hop from well 1 to well 2 must raise the energy over the barrier at H = 0.25 J, but the recordings reached 0.02 .. 0.2 J '
+      + '(0.5th to 99.5th percentile per free run): the model has never seen that energy; record free swings over that barrier (runs that pass from well 1 to well 2) and learn again');
+  });
+
+  it('allows the raise stage its margin above the barrier once the recordings crossed it', () => {
+    // Recorded top 0.26 just over the barrier; stage 1 raises to 0.25 + 0.1 * 0.25 = 0.275, above 0.26 * 1.05 = 0.273.
+    const d = designWellHop(withCoverage(0.26), { fromWell: 1, toWell: 2, uMax: 0.2, feasibility: false });
+    expect(d.stages[0].target.energy).toBeCloseTo(0.275, 12);
+    expect(d.model.validRange).toEqual({ qMin: -1.6, qMax: 1.6, energyMin: 0.02, energyMax: 0.26 });
+    expect(d.checks.find((c) => c.name === 'target in range')!.detail).toMatch(/the barrier crossed \(highest 0\.25\) lie inside them, so the raise stages' margin above it is allowed/);
+  });
+
+  it('refuses a rotation faster than the recordings went over the top, or any rotation when they never did', () => {
+    const m = 0.5, l = 0.42, g = 9.81, I = m * l * l, MGL = m * g * l;
+    // The pendulum's top is 2 m g l (elementary mechanics); recorded up to 2.2 m g l (a run just over the top).
+    const model = pendulumModel(m, l, g, 0.05);
+    model.coverage = { energyMin: 0, energyMax: 2.2 * MGL, qMin: -3.1, qMax: 3.1, vMaxAbs: 8, joulesPerModelUnit: 1 };
+    // 3 rad/s over the top: H* = I 9/2 + 2 m g l = 4.52 J, below 1.05 * 2.2 m g l = 4.76 J.
+    const ok = designWellHop(model, { rotation: { speed: 3, turns: null }, uMax: 0.3, feasibility: false });
+    expect(ok.model.validRange).toEqual({ qMin: -Math.PI, qMax: Math.PI, energyMin: 0, energyMax: 2.2 * MGL });
+    // 6 rad/s: H* = I 36/2 + 2 m g l = 5.71 J, above it.
+    expect(refused(() => designWellHop(model, { rotation: { speed: 6, turns: null }, uMax: 0.3, feasibility: false })))
+      .toContain(`stage 1 (rotate (6 rad/s over the top)) targets H = ${Number((18 * I + 2 * MGL).toPrecision(4))} J, above what the model knows`);
+    model.coverage = { ...model.coverage, energyMax: 1.5 * MGL, qMin: -2, qMax: 2 };
+    expect(refused(() => designWellHop(model, { rotation: { speed: 3, turns: 2 }, uMax: 0.3, feasibility: false })))
+      .toMatch(/^a rotation passes the top of the circle at H = 4\.12 J, but the recordings reached 0 \.\. 3\.09 J .*record a free run over the top/);
+  });
+
+  it('plans a model file without a recorded range as before, and says the range was not checked', () => {
+    const d = designWellHop(doubleWellModel(), { fromWell: 1, toWell: 2, uMax: 0.2, feasibility: false });
+    expect(d.model.validRange).toEqual({ qMin: -2, qMax: 2, energyMin: expect.closeTo(0, 12), energyMax: expect.closeTo(0.275, 12) });
+    expect(d.checks.find((c) => c.name === 'target in range')!.detail).toMatch(/^not checked against the recordings: the model file does not record the energy range/);
   });
 });
 

@@ -3,6 +3,8 @@ import { readEnergyModel, ModelFileError } from '../../src-main/design/read-mode
 import { pendulumModel } from './models.ts';
 
 const good = () => JSON.parse(JSON.stringify(pendulumModel())) as Record<string, any>;
+/** A recorded range as engine/learn writes it (a pendulum swung to 30 degrees, per unit inertia). */
+const COVERAGE = { energyMin: 0.4, energyMax: 3.2, qMin: -0.52, qMax: 0.52, vMaxAbs: 2.5, joulesPerModelUnit: 1 };
 
 describe('readEnergyModel', () => {
   it('returns an equal deep copy of a good model', () => {
@@ -11,6 +13,13 @@ describe('readEnergyModel', () => {
     expect(m).toEqual(src);
     m.coefficients[0] = 9;
     expect(src.coefficients[0]).toBe(0.5);
+  });
+
+  it('reads the recorded range when present; a file without it, or with null, has none', () => {
+    const withCov = { ...good(), coverage: { ...COVERAGE } };
+    expect(readEnergyModel(withCov, 'c.json').coverage).toEqual(COVERAGE);
+    expect('coverage' in readEnergyModel(good(), 'old.json')).toBe(false);
+    expect('coverage' in readEnergyModel({ ...good(), coverage: null }, 'n.json')).toBe(false);
   });
 
   const cases: [string, (m: Record<string, any>) => void, RegExp][] = [
@@ -29,6 +38,13 @@ describe('readEnergyModel', () => {
     ['well index', (m) => { m.landscape.wells[0].index = 3; }, /landscape\.wells\[0\]\.index: expected 1/],
     ['barrier well', (m) => { m.landscape.barriers[0].between = [1, 2]; }, /landscape\.barriers\[0\]\.between\[1\]/],
     ['separable flag', (m) => { m.structure.separable = 'yes'; }, /structure\.separable/],
+    ['coverage kind', (m) => { m.coverage = [1, 2]; }, /coverage: expected an object, got \[1,2\]/],
+    ['coverage energy', (m) => { m.coverage = { ...COVERAGE, energyMax: Infinity }; }, /coverage\.energyMax: expected a finite number, got null/],
+    ['coverage order', (m) => { m.coverage = { ...COVERAGE, energyMin: 9 }; }, /coverage\.energyMax: must be at least coverage\.energyMin \(9\), got 3\.2/],
+    ['coverage positions', (m) => { m.coverage = { ...COVERAGE, qMax: -1 }; }, /coverage\.qMax: must be at least coverage\.qMin \(-0\.52\), got -1/],
+    ['coverage speed', (m) => { m.coverage = { ...COVERAGE, vMaxAbs: -2 }; }, /coverage\.vMaxAbs: expected a speed >= 0, got -2/],
+    ['coverage missing field', (m) => { m.coverage = { ...COVERAGE, qMin: undefined }; }, /coverage\.qMin: expected a finite number, got undefined/],
+    ['coverage scale', (m) => { m.coverage = { ...COVERAGE, joulesPerModelUnit: -1 }; }, /coverage\.joulesPerModelUnit: expected a positive scale, got -1/],
   ];
   for (const [name, spoil, msg] of cases) {
     it(`rejects a bad field, naming it: ${name}`, () => {

@@ -27,6 +27,9 @@ function pendulumModel(): EnergyModel {
   };
 }
 
+/** A recorded range as engine/learn writes it (numbers as a 30 degree pendulum per unit inertia would give). */
+const COVERAGE = { energyMin: 0.4, energyMax: 3.2, qMin: -0.52, qMax: 0.52, vMaxAbs: 2.5, joulesPerModelUnit: 1 };
+
 function withField(edit: (o: any) => void): string {
   const o = JSON.parse(serializeModel(pendulumModel()));
   edit(o);
@@ -63,9 +66,26 @@ describe('model file', () => {
     [(o: any) => { o.landscape.wells[0].index = 0; }, /field "landscape.wells\[0\].index": expected at least 1/],
     [(o: any) => { o.verdict.ok = false; }, /field "verdict.ok": must be true when status is "ok"/],
     [(o: any) => { delete o.metrics; }, /field "metrics": expected an object, got undefined/],
+    [(o: any) => { o.coverage = 3; }, /field "coverage": expected an object, got 3/],
+    [(o: any) => { o.coverage = { ...COVERAGE, energyMax: 'high' }; }, /field "coverage.energyMax": expected a finite number, got "high"/],
+    [(o: any) => { o.coverage = { ...COVERAGE, energyMin: null }; }, /field "coverage.energyMin": expected a finite number, got null/],
+    [(o: any) => { o.coverage = { ...COVERAGE, energyMin: 50 }; }, /field "coverage.energyMax": must be at least coverage.energyMin \(50\), got 3.2/],
+    [(o: any) => { o.coverage = { ...COVERAGE, qMin: 1 }; }, /field "coverage.qMax": must be at least coverage.qMin \(1\), got 0.52/],
+    [(o: any) => { o.coverage = { ...COVERAGE, vMaxAbs: -1 }; }, /field "coverage.vMaxAbs": expected at least 0, got -1/],
+    [(o: any) => { const { qMax: _drop, ...rest } = COVERAGE; o.coverage = rest; }, /field "coverage.qMax": expected a finite number, got undefined/],
+    [(o: any) => { o.coverage = { ...COVERAGE, joulesPerModelUnit: 0 }; }, /field "coverage.joulesPerModelUnit": expected at least/],
   ])('names the field that is wrong (%#)', (edit, message) => {
     expect(() => parseModel(withField(edit), 'bad.json')).toThrow(ModelFileError);
     expect(() => parseModel(withField(edit), 'bad.json')).toThrow(message);
+  });
+
+  it('reads the recorded range when present, and files without it (or with null) as before', () => {
+    const m = parseModel(withField((o) => { o.coverage = { ...COVERAGE }; }), 'c.json');
+    expect(m.coverage).toEqual(COVERAGE);
+    expect(parseModel(serializeModel(m), 'c2.json').coverage).toEqual(COVERAGE);
+    const old = parseModel(serializeModel(pendulumModel()), 'old.json');
+    expect('coverage' in old).toBe(false);
+    expect('coverage' in parseModel(withField((o) => { o.coverage = null; }), 'n.json')).toBe(false);
   });
 
   it('gives dH/dq and dH/dv as formulas that match the model gradient', () => {
