@@ -193,7 +193,8 @@ function knownRange(model: EnergyModel, land: Landscape, plan: HopPlan, unit: st
       }
       raises.add(2 * h + 1);
     });
-    notes.push(`the barrier${plan.legs.length > 1 ? 's' : ''} crossed (highest ${plan.legs.map((l) => fmt(l.highest)).join(', ')}) lie inside them, so the raise stages' margin above ${plan.legs.length > 1 ? 'them' : 'it'} is allowed`);
+    const many = plan.legs.length > 1;
+    notes.push(`${many ? 'the barriers crossed' : 'the barrier crossed'} (H = ${plan.legs.map((l) => fmt(l.highest)).join(', ')}) ${many ? 'lie' : 'lies'} inside them, so the raise ${many ? 'stages may target their margin above them' : 'stage may target its margin above it'}`);
   }
   for (const st of plan.stages) {
     if (raises.has(st.index)) continue;

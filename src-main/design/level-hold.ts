@@ -7,9 +7,9 @@
 //   Targets outside what the model knows are refused with the reason and the range (DesignRefusal).
 // - Known range: the energies the recordings reached (model.coverage, robust extremes of H over
 //   the free runs, engine/learn/coverage.ts). A target may lie up to COVERAGE_ALLOWANCE (5%) above
-//   the recorded top: H is zero at the deepest well, so that is 5% of the recorded height, about
-//   what an energy model fitted on the recorded band extrapolates without visible error (our
-//   choice); beyond it the design is refused. Model files without coverage (learned before it was
+//   the recorded top: H is zero at the deepest well, so that is 5% of the recorded height, a small
+//   extrapolation that also absorbs the recorded top being a percentile, slightly below the
+//   highest swing (our choice); beyond it the design is refused. Model files without coverage (learned before it was
 //   recorded) keep the range derived from the landscape: up to the highest barrier for angles,
 //   the lower of V at the recorded ends for displacements; the check's detail says which applies.
 // - Units: the law computes u in the input's physical unit, so a model per unit mass ('J/kg', no

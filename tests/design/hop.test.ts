@@ -300,7 +300,20 @@ describe('designWellHop against the energy range the recordings covered', () => 
     const d = designWellHop(withCoverage(0.26), { fromWell: 1, toWell: 2, uMax: 0.2, feasibility: false });
     expect(d.stages[0].target.energy).toBeCloseTo(0.275, 12);
     expect(d.model.validRange).toEqual({ qMin: -1.6, qMax: 1.6, energyMin: 0.02, energyMax: 0.26 });
-    expect(d.checks.find((c) => c.name === 'target in range')!.detail).toMatch(/the barrier crossed \(highest 0\.25\) lie inside them, so the raise stages' margin above it is allowed/);
+    expect(d.checks.find((c) => c.name === 'target in range')!.detail).toMatch(/the barrier crossed \(H = 0\.25\) lies inside them, so the raise stage may target its margin above it/);
+  });
+
+  it('rescales the recorded energies when H was rescaled after learning (as the CLI does for --mass)', () => {
+    // H doubled (mass 2 given to a unit-mass model): barrier 0.5; the range recorded at scale 1 up to 0.3 reads as 0.6.
+    const m = analyticModel({
+      coordinate: 'linear', terms: [{ kind: 'mono', a: 0, b: 2 }, { kind: 'mono', a: 2, b: 0 }, { kind: 'mono', a: 4, b: 0 }],
+      coefficients: [1, -1, 0.5], offset: 0.5, lambda: -0.02, range: [-2, 2],
+    });
+    m.scale = { ...m.scale, joulesPerModelUnit: 2 };
+    m.coverage = { energyMin: 0.02, energyMax: 0.3, qMin: -1.6, qMax: 1.6, vMaxAbs: 0.8, joulesPerModelUnit: 1 };
+    const d = designWellHop(m, { fromWell: 1, toWell: 2, uMax: 0.4, feasibility: false });
+    expect(d.model.validRange.energyMax).toBeCloseTo(0.6, 14);
+    expect(d.model.validRange.energyMin).toBeCloseTo(0.04, 14);
   });
 
   it('refuses a rotation faster than the recordings went over the top, or any rotation when they never did', () => {
