@@ -61,13 +61,17 @@ export function createHandlers(ws: Workspace = new Workspace()): Partial<Handler
       const recording = ws.addImport(result, [d.file.name], d.mapping);
       return { recording, project: ws.summary() };
     },
-    'recordings.trace': ({ recording, run, maxPoints }) => {
+    'recordings.trace': ({ recording, run, maxPoints, tMin, tMax }) => {
       const e = ws.store.recordings.peek(recording);
       if (!e) throw new OperationError('failed', `no recording named "${recording}"`);
       const r = e.recording.runs[run];
       if (!r) throw new OperationError('failed', `recording "${recording}" has ${e.recording.runs.length} run(s); run ${run} does not exist`);
-      const d = decimateMinMax(r.t, r.q, maxPoints);
-      return { t: d.t, q: d.y, decimated: d.decimated };
+      // The window [tMin, tMax] by binary search on the sorted times, one sample of context each side.
+      const lower = (x: number) => { let lo = 0, hi = r.t.length; while (lo < hi) { const mid = (lo + hi) >> 1; if (r.t[mid] < x) lo = mid + 1; else hi = mid; } return lo; };
+      const i0 = tMin === undefined ? 0 : Math.max(0, lower(tMin) - 1);
+      const i1 = tMax === undefined ? r.t.length : Math.min(r.t.length, lower(tMax) + 1);
+      const d = decimateMinMax(r.t.subarray(i0, Math.max(i0 + 1, i1)), r.q.subarray(i0, Math.max(i0 + 1, i1)), maxPoints);
+      return { t: d.t, q: d.y, decimated: d.decimated, tStart: r.t[0], tEnd: r.t[r.t.length - 1] };
     },
     'energy.learn': async ({ recording, mass, maxDegree, userTerms }, ctx) => {
       const e = ws.store.recordings.peek(recording);

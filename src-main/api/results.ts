@@ -39,6 +39,9 @@ export interface Trace {
   q: number[];
   /** Whether the points were decimated (extremes kept per bucket). */
   decimated: boolean;
+  /** The whole run's time span (for zooming back out). */
+  tStart: number;
+  tEnd: number;
 }
 
 export interface DialogOpen {

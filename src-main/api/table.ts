@@ -67,9 +67,12 @@ export const operations = {
     'Import one CSV recording given as text (drag-and-drop in browser mode).',
     v.object({ name: v.string({ min: 1, max: 255 }), text: v.string({ max: 64 * 1024 * 1024 }), mapping: columnMapping })),
   'recordings.demo': operation<{ rig: 'pendulum' | 'strip' }, R.ImportSummary>('Add the demo recordings of an invented rig.', v.object({ rig: v.literal('pendulum', 'strip') })),
-  'recordings.trace': operation<{ recording: string; run: number; maxPoints: number }, R.Trace>(
-    "One run's samples, decimated to at most maxPoints keeping each bucket's extremes.",
-    v.object({ recording: entryName, run: v.number({ integer: true, min: 0 }), maxPoints: v.number({ integer: true, min: 10, max: 200_000 }) })),
+  'recordings.trace': operation<{ recording: string; run: number; maxPoints: number; tMin?: number; tMax?: number }, R.Trace>(
+    "One run's samples in [tMin, tMax] (default: all), decimated to at most maxPoints keeping each bucket's extremes.",
+    v.object({
+      recording: entryName, run: v.number({ integer: true, min: 0 }), maxPoints: v.number({ integer: true, min: 10, max: 200_000 }),
+      tMin: v.optional(v.number()), tMax: v.optional(v.number()),
+    })),
   'energy.learn': operation<{ recording: string; mass?: number; maxDegree?: number; userTerms?: string[] }, R.ModelSummary>(
     'Learn the conserved energy of a recording (runs in a worker thread).',
     v.object({

@@ -19,6 +19,13 @@ export interface LinePlotOptions {
   band?: { lo: number; hi: number; label: string };
   hLines?: { y: number; label: string; color: string }[];
   vLines?: { x: number; label: string; color: string }[];
+  /** Fixed x range (e.g. the zoom window); default: the data's extent. */
+  xDomain?: [number, number];
+  /**
+   * Wheel to zoom and drag to pan along x; when a gesture ends, onWindow gets the visible range
+   * (clamped to `full`) so the caller can fetch that window at full resolution and redraw.
+   */
+  zoom?: { full: [number, number]; onWindow: (x0: number, x1: number) => void };
 }
 
 function extent(series: Series[], pick: 'x' | 'y', extra: number[] = []): [number, number] {
@@ -46,15 +53,19 @@ export function drawLinePlot(svgEl: SVGSVGElement, o: LinePlotOptions): void {
   const svg = d3.select(svgEl).attr('viewBox', `0 0 ${o.width} ${o.height}`).attr('width', o.width).attr('height', o.height);
   svg.selectAll('*').remove();
   const extraY = [...(o.band ? [o.band.lo, o.band.hi] : []), ...(o.hLines ?? []).map((h) => h.y)];
-  const x = d3.scaleLinear().domain(extent(o.series, 'x')).range([margin.left, o.width - margin.right]);
+  const x = d3.scaleLinear().domain(o.xDomain ?? extent(o.series, 'x')).range([margin.left, o.width - margin.right]);
   const y = d3.scaleLinear().domain(extent(o.series, 'y', extraY)).nice().range([o.height - margin.bottom, margin.top]);
+  const clipId = `clip-${Math.random().toString(36).slice(2)}`;
+  svg.append('clipPath').attr('id', clipId).append('rect').attr('x', margin.left).attr('y', margin.top)
+    .attr('width', o.width - margin.left - margin.right).attr('height', o.height - margin.top - margin.bottom);
   const g = svg.append('g');
   if (o.band) {
     g.append('rect').attr('x', margin.left).attr('width', o.width - margin.left - margin.right)
       .attr('y', y(o.band.hi)).attr('height', Math.max(1, y(o.band.lo) - y(o.band.hi)))
       .attr('fill', 'var(--accent-soft)').append('title').text(o.band.label);
   }
-  g.append('g').attr('transform', `translate(0,${o.height - margin.bottom})`).call(d3.axisBottom(x).ticks(8).tickFormat(d3.format('.4~g')));
+  const xAxis = g.append('g').attr('transform', `translate(0,${o.height - margin.bottom})`);
+  xAxis.call(d3.axisBottom(x).ticks(8).tickFormat(d3.format('.4~g')));
   g.append('g').attr('transform', `translate(${margin.left},0)`).call(d3.axisLeft(y).ticks(6).tickFormat(d3.format('.3~g')));
   g.append('text').attr('x', (margin.left + o.width - margin.right) / 2).attr('y', o.height - 6).attr('text-anchor', 'middle').attr('fill', 'currentColor').text(o.xLabel);
   g.append('text').attr('transform', `translate(14,${(o.height - margin.bottom + margin.top) / 2}) rotate(-90)`).attr('text-anchor', 'middle').attr('fill', 'currentColor').text(o.yLabel);
@@ -66,11 +77,31 @@ export function drawLinePlot(svgEl: SVGSVGElement, o: LinePlotOptions): void {
     g.append('line').attr('y1', margin.top).attr('y2', o.height - margin.bottom).attr('x1', x(vl.x)).attr('x2', x(vl.x))
       .attr('stroke', vl.color).attr('stroke-dasharray', '2 3').append('title').text(vl.label);
   }
-  for (const s of o.series) {
+  const plotArea = g.append('g').attr('clip-path', `url(#${clipId})`);
+  const paths = o.series.map((s) => {
     const idx = d3.range(s.x.length);
-    const line = d3.line<number>().x((i) => x(s.x[i])).y((i) => y(s.y[i]));
-    g.append('path').attr('d', line(idx) ?? '').attr('fill', 'none').attr('stroke', s.color).attr('stroke-width', 1.2)
+    const el = plotArea.append('path').attr('fill', 'none').attr('stroke', s.color).attr('stroke-width', 1.2)
       .attr('stroke-dasharray', s.dashed ? '5 3' : null).attr('data-series', s.label);
+    const draw = (sx: d3.ScaleLinear<number, number>) => el.attr('d', d3.line<number>().x((i) => sx(s.x[i])).y((i) => y(s.y[i]))(idx) ?? '');
+    draw(x);
+    return draw;
+  });
+  if (o.zoom) {
+    const { full, onWindow } = o.zoom;
+    const span = full[1] - full[0];
+    const behaviour = d3.zoom<SVGSVGElement, unknown>()
+      .scaleExtent([Math.min(1, (x.domain()[1] - x.domain()[0]) / span), 1e6])
+      .on('zoom', (ev: d3.D3ZoomEvent<SVGSVGElement, unknown>) => {
+        const zx = ev.transform.rescaleX(x);
+        xAxis.call(d3.axisBottom(zx).ticks(8).tickFormat(d3.format('.4~g')));
+        for (const draw of paths) draw(zx);
+      })
+      .on('end', (ev: d3.D3ZoomEvent<SVGSVGElement, unknown>) => {
+        if (ev.transform.k === 1 && ev.transform.x === 0) return;
+        const [a, b] = ev.transform.rescaleX(x).domain();
+        onWindow(Math.max(full[0], a), Math.min(full[1], b));
+      });
+    svg.call(behaviour).on('dblclick.zoom', () => onWindow(full[0], full[1]));
   }
   if (o.series.length > 1) {
     const legend = g.append('g').attr('transform', `translate(${margin.left + 8},${margin.top + 4})`);

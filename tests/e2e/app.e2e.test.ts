@@ -44,6 +44,11 @@ describe.skipIf(!chromiumAvailable && !required)('app in a real browser', () => 
     expect(cells[1]).toBe('200.0');
     await page.waitForSelector('[data-testid=trace-plot] path[data-series=position]');
     await e.shot('02-recordings');
+    // Wheel over the trace zooms in; the window is fetched again at full resolution.
+    const box = (await page.locator('[data-testid=trace-plot]').boundingBox())!;
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await page.mouse.wheel(0, -600);
+    await page.waitForSelector('text=/showing \\d/');
     expect(e.consoleErrors.join("\n")).toBe("");
   });
 
@@ -157,4 +162,29 @@ describe.skipIf(!chromiumAvailable && !required)('app in a real browser', () => 
     expect(await page.locator('[data-testid=run-trial]').isEnabled()).toBe(true);
     expect(e.consoleErrors.join("\n")).toBe("");
   }, 90_000);
+
+  it('learns the demo strip and designs a hop from well 1 to well 2 with its supervisor', async () => {
+    const { page } = e;
+    await page.click('[data-step=recordings]');
+    await page.click('[data-testid=demo-strip]');
+    await page.waitForSelector('[data-recording="tamsin-strip"]');
+    await page.click('[data-step=energy]');
+    await page.selectOption('select[name=learn-recording]', 'tamsin-strip');
+    await page.click('[data-testid=learn]');
+    await page.waitForSelector('[data-model="tamsin-strip energy"] [data-testid=formula]', { timeout: 90_000 });
+    await page.click('[data-step=controller]');
+    await page.selectOption('select[name=design-model]', 'tamsin-strip energy');
+    await page.check('input[name=mode][value=well-hop]');
+    await page.selectOption('select[name=target-kind]', 'at-rest');
+    await page.fill('input[name=well]', '1');
+    await page.fill('input[name=to-well]', '2');
+    await page.fill('input[name=umax]', '0.5');
+    await page.fill('input[name=rate]', '1000');
+    await page.click('[data-testid=design]');
+    await page.waitForSelector('[data-testid=transitions]', { timeout: 90_000 });
+    expect(await page.locator('[data-testid=stages] tbody tr').count()).toBe(2);
+    expect(await page.locator('[data-testid=transitions] tbody tr').count()).toBeGreaterThanOrEqual(1);
+    await e.shot('08-hop');
+    expect(e.consoleErrors.join("\n")).toBe("");
+  }, 180_000);
 });
