@@ -7,10 +7,20 @@ import { createHandlers } from '../src-main/api/handlers.ts';
 import { MENU, type MenuCommand } from './channels.ts';
 import { hardenContents, hardenSession, secureWebPreferences } from './harden.ts';
 import { wireIpc } from './ipc.ts';
+import { loadRecent, pushRecent, saveRecent } from './recent.ts';
 
 // The main bundle is an ES module: derive its folder from import.meta.url.
 const here = fileURLToPath(new URL('.', import.meta.url));
 let mainWindow: BrowserWindow | null = null;
+let recent: string[] = [];
+const recentFile = () => join(app.getPath('userData'), 'recent-projects.json');
+
+function rememberProject(path: string): void {
+  recent = pushRecent(recent, path);
+  saveRecent(recentFile(), recent);
+  app.addRecentDocument(path);
+  buildMenu();
+}
 let pendingOpen: string | null = process.argv.find((a) => a.endsWith('.ergostat')) ?? null;
 
 function rendererUrl(): string {
@@ -29,7 +39,13 @@ function send(command: MenuCommand, arg?: string): void {
 
 function buildMenu(): void {
   const isMac = process.platform === 'darwin';
-  const recent: MenuItemConstructorOptions[] = [{ role: 'recentDocuments' as const }, { role: 'clearRecentDocuments' as const }];
+  const recentItems: MenuItemConstructorOptions[] = recent.length === 0
+    ? [{ label: 'No recent projects', enabled: false }]
+    : [
+        ...recent.map((p) => ({ label: p, click: () => send('open-recent', p) })),
+        { type: 'separator' as const },
+        { label: 'Clear Recent', click: () => { recent = []; saveRecent(recentFile(), recent); app.clearRecentDocuments(); buildMenu(); } },
+      ];
   const template: MenuItemConstructorOptions[] = [
     ...(isMac ? [{ role: 'appMenu' as const }] : []),
     {
@@ -37,7 +53,7 @@ function buildMenu(): void {
       submenu: [
         { label: 'New Project', accelerator: 'CmdOrCtrl+N', click: () => send('new') },
         { label: 'Open…', accelerator: 'CmdOrCtrl+O', click: () => send('open') },
-        ...(isMac ? [{ label: 'Open Recent', submenu: recent }] : []),
+        { label: 'Open Recent', submenu: recentItems },
         { type: 'separator' },
         { label: 'Save', accelerator: 'CmdOrCtrl+S', click: () => send('save') },
         { label: 'Save As…', accelerator: 'Shift+CmdOrCtrl+S', click: () => send('save-as') },
@@ -116,11 +132,24 @@ if (!app.requestSingleInstanceLock()) {
   });
   app.whenReady().then(() => {
     hardenSession(session.defaultSession);
+    recent = loadRecent(recentFile());
     const handlers = createHandlers();
+    // Opening or saving a project puts it at the top of File > Open Recent.
+    const open = handlers['project.open']!;
+    const save = handlers['project.save']!;
+    handlers['project.open'] = async (args, ctx) => {
+      const r = await open(args, ctx);
+      rememberProject(args.path);
+      return r;
+    };
+    handlers['project.save'] = async (args, ctx) => {
+      const r = await save(args, ctx);
+      if (r.path) rememberProject(r.path);
+      return r;
+    };
     handlers['dialog.open'] = async ({ kind }) => {
       const filters = kind === 'project' ? [{ name: 'Ergostat project', extensions: ['ergostat'] }] : [{ name: 'Recordings', extensions: ['csv', 'txt', 'tsv'] }];
       const r = await dialog.showOpenDialog(mainWindow!, { properties: kind === 'project' ? ['openFile'] : ['openFile', 'multiSelections'], filters });
-      if (!r.canceled && kind === 'project' && r.filePaths[0]) app.addRecentDocument(r.filePaths[0]);
       return { paths: r.canceled ? [] : r.filePaths };
     };
     handlers['dialog.save'] = async ({ kind, suggestedName }) => {
