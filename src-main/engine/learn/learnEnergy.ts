@@ -21,7 +21,7 @@ import { findLandscape } from './landscape.ts';
 import { buildLibrary, formulaOf, termGrad, termValue, type Term } from './library.ts';
 import { estimateNoise, logDecrement } from '../signal/index.ts';
 import { minimize1d } from './minimize1d.ts';
-import { modelEvaluator, specFromTerm, type CandidateReport, type EnergyModel, type Landscape, type ReplayReport, type Verdict, type VerdictCode } from './model.ts';
+import { specFromTerm, type CandidateReport, type EnergyModel, type Landscape, type ReplayReport, type Verdict, type VerdictCode } from './model.ts';
 import { dominantPeriod } from './period.ts';
 import { prepareRecording, type PreparedRun } from './prepare.ts';
 import { sparsify } from './sparsify.ts';
@@ -476,8 +476,7 @@ export function learnEnergy(rec: Recording, opts: LearnOptions = {}): EnergyMode
   // The range the free runs covered: H on the same Savitzky–Golay states the fit used, robust
   // extremes per run (0.5th / 99.5th percentiles), then over the runs (coverage.ts).
   const finalCoef = Array.from(coefficients, (x, j) => (sp.active.includes(j) ? x : 0));
-  const evFinal = modelEvaluator({ library: { terms: terms.map(specFromTerm) }, coefficients: finalCoef, offset });
-  const coverage = recordedCoverage(states, evFinal.H, { periodic: angle, trim: pick.window, joulesPerModelUnit: scale });
+  const coverage = recordedCoverage(states, (q, v) => evalH(terms, finalCoef, q, v) + offset, { periodic: angle, trim: pick.window, joulesPerModelUnit: scale });
   const model: EnergyModel = {
     format: 'ergostat-energy-model', version: 1, status: 'ok', verdict: verdict('ok', 'a lightly damped conserved energy was found'),
     coordinate: rec.coordinate,

@@ -82,7 +82,7 @@ export function specFromTerm(t: Term): TermSpec {
 }
 
 /** Evaluation closures over the model's terms (user terms compiled once). */
-export function modelEvaluator(m: { library: { terms: TermSpec[] }; coefficients: number[]; offset: number }) {
+export function modelEvaluator(m: Pick<EnergyModel, 'library' | 'coefficients' | 'offset'>) {
   const terms = m.library.terms.map(termFromSpec);
   const idx: number[] = [];
   for (let j = 0; j < terms.length; j++) if (m.coefficients[j] !== 0) idx.push(j);
