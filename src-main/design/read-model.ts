@@ -1,7 +1,8 @@
 // Reads an energy model file (model.json, the EnergyModel of engine/learn/model.ts, written by
 // `ergostat learn`) for the designer, checking the fields the designer relies on: files from
 // other people are untrusted, so numbers must be finite, term specs well formed, user terms
-// formulas in our language, and the coefficients one per term. Fields the designer does not use
+// formulas in our language, the coefficients one per term, and the recorded range (`coverage`,
+// optional: files learned before it was recorded have none) finite and ordered. Fields the designer does not use
 // are copied as they are (a deep copy: the result shares nothing with the input).
 import type { EnergyModel } from '../engine/learn/index.ts';
 import { compileFormula } from '../engine/formula/index.ts';
