@@ -1,3 +1,4 @@
+import type { TrialSettings } from '../design/trial-settings.ts';
 import type { EnergyModel } from '../engine/learn/index.ts';
 import type { ControllerDesign } from '../design/types.ts';
 // Result shapes of the operations in ./table.ts (types only: the renderer imports these).
@@ -187,19 +188,8 @@ export interface TrialOutcomeJson {
   monteCarlo: MonteCarloSummary | null;
 }
 
-export interface TrialSettingsJson {
-  q0: number;
-  v0: number;
-  duration: number;
-  runs: number | null;
-  mismatch: number;
-  workers: number;
-  bits: number | null;
-  range: number | null;
-  noise: number;
-  estimator: 'difference' | 'observer';
-  seed: number;
-}
+/** The settings of a trial as stored (the trial engine's own shape). */
+export type TrialSettingsJson = TrialSettings;
 
 export interface TrialDetail {
   name: string;
