@@ -28,7 +28,9 @@ const USAGE = [
   '  Without --plant the design is tried on its own model (q\'\' derived from H). --runs N: Monte Carlo, every plant',
   '  parameter scaled by a factor uniform in [1 - P, 1 + P]. --sensor-bits B over R (default 2 pi for angles, the',
   '  recorded span for linear rigs), --noise SIGMA: position noise (unit of q). --estimator: how the controller gets',
-  '  the velocity (default difference: filtered backward difference). --seed: noise and mismatch seed (default 0).',
+  '  the velocity: observer (default: on the design\'s learned model, as a rig with a good model would) or',
+  '  difference (filtered backward difference, model-free; it lags, see docs/trial-format.md).',
+  '  --seed: noise and mismatch seed (default 0).',
 ].join('\n');
 
 const SPEC: Record<string, OptionSpec> = {
@@ -61,7 +63,9 @@ function settings(args: ParsedArgs): Settings {
   if (range !== null && bits === null) throw new UsageError('option --sensor-range needs --sensor-bits B');
   const noise = numberValue(args, 'noise') ?? 0;
   if (!(noise >= 0)) throw new UsageError(`option --noise expects a standard deviation >= 0, got ${noise}`);
-  const est = optionalValue(args, 'estimator') ?? 'difference';
+  // The observer by default: the filtered difference lags, and a stiff energy law then chases a
+  // phantom energy error at twice the swing frequency (measured in docs/trial-format.md).
+  const est = optionalValue(args, 'estimator') ?? 'observer';
   if (est !== 'difference' && est !== 'observer') throw new UsageError(`option --estimator expects "difference" or "observer", got "${est}"`);
   const seed = int('seed', 0, Number.MAX_SAFE_INTEGER) ?? 0;
   return { q0, v0, duration, runs, mismatch: mismatch ?? 0, workers: workers ?? 1, bits, range, noise, estimator: est, seed, out: requiredValue(args, 'out'), plantPath: optionalValue(args, 'plant') ?? null };
