@@ -124,7 +124,7 @@ export interface TrialMetricsJson {
   target: number;
   band: number;
   resolution: number | null;
-  bandBasis: 'relative' | 'resolution';
+  bandBasis: 'relative' | 'floor' | 'resolution';
   timeToBand: number | null;
   converged: boolean;
   cycles: number;

@@ -153,7 +153,7 @@ export async function runDesignTrial(design: ControllerDesign, s: TrialSettings,
   const run1 = staged ? controller : { reset: () => controller.reset(), step: (q: number, v: number, t: number, dt: number) => controller.step(q, v, t, dt) };
   const r = simulate({ ...sim, controller: run1, random: rng() });
   const sigmas = sensorSigmas(r.diagnostics.sensorStep, s.noise, T, estimator);
-  const metricsOpt = { target: target.energy, Q: law.Q, R: law.R, energy, sensor: sigmas };
+  const metricsOpt = { target: target.energy, Q: law.Q, R: law.R, energy, sensor: sigmas, bandFloor: restBandFloor(design, target) };
   const metrics = r.trace.t.length >= 2 ? trialMetrics(r.trace, metricsOpt) : null;
   const switches = controller.switches();
 
@@ -232,4 +232,20 @@ export async function runDesignTrial(design: ControllerDesign, s: TrialSettings,
     baselines, monteCarlo,
   };
   return { outcome, trace: r.trace, switches, monteCarloRuns, warnings };
+}
+
+/**
+ * The band floor for a target at rest in a well: the energy of a swing whose amplitude is 2 % of
+ * the way from the well bottom to its nearest barrier. Near the bottom the energy grows with the
+ * square of the amplitude, so this is 0.02^2 of the well's depth (common practice for "at rest":
+ * a small residual swing, not a fraction of a zero energy). Undefined for other targets.
+ */
+export function restBandFloor(design: ControllerDesign, target: { kind: string; energy: number; well?: number }): number | undefined {
+  if (target.kind !== 'at-rest' || target.well === undefined) return undefined;
+  const well = design.model.wells.find((w) => w.index === target.well);
+  if (!well) return undefined;
+  let depth = Infinity;
+  for (const b of design.model.barriers) if (b.between.includes(well.index)) depth = Math.min(depth, b.energy - well.energy);
+  if (!Number.isFinite(depth) || !(depth > 0)) return undefined;
+  return 0.02 * 0.02 * depth;
 }

@@ -16,6 +16,11 @@ export interface MetricsOptions {
   R?: number;
   /** Relative half-width of the band around H*. Default 0.02 (+-2%). */
   bandRelative?: number;
+  /**
+   * Smallest half-width of the band (absolute, unit of H). For a target at a well bottom H* is ~0
+   * and 2 % of it is no band at all; the caller gives a floor from the well (see run-trial.ts).
+   */
+  bandFloor?: number;
   /** Sensor position/velocity errors: the energy resolution is computed from them and used as the band when wider. */
   sensor?: SensorSigmas;
   /** The model energy (needed with `sensor`, for its gradient). */
@@ -36,8 +41,8 @@ export interface TrialMetrics {
   band: number;
   /** The energy resolution the sensor allows at the target level (null without sensor data). */
   resolution: number | null;
-  /** 'relative' = +-bandRelative * |H*|; 'resolution' = the sensor's energy resolution (it was wider). */
-  bandBasis: 'relative' | 'resolution';
+  /** 'relative' = +-bandRelative * |H*|; 'floor' = options.bandFloor (it was wider); 'resolution' = the sensor's energy resolution (it was wider still). */
+  bandBasis: 'relative' | 'floor' | 'resolution';
   /** Time (from the trace start) after which every cycle average stays in the band; null if never. */
   timeToBand: number | null;
   /** The last minCyclesInBand cycle averages are all in the band. */
@@ -117,7 +122,10 @@ export function trialMetrics(trace: Trace, options: MetricsOptions): TrialMetric
     if (!options.energy) throw new RangeError('trialMetrics: options.energy is required with options.sensor');
     resolution = energyResolution(options.energy, q.subarray(i0, i1), v.subarray(i0, i1), options.sensor);
   }
-  const relBand = rel * Math.abs(target);
+  const floor = options.bandFloor ?? 0;
+  if (!(floor >= 0)) throw new RangeError(`trialMetrics: bandFloor must be >= 0, got ${floor}`);
+  const useFloor = floor > rel * Math.abs(target);
+  const relBand = useFloor ? floor : rel * Math.abs(target);
   const useRes = resolution !== null && resolution > relBand;
   const band = useRes ? resolution! : relBand;
 
@@ -129,7 +137,7 @@ export function trialMetrics(trace: Trace, options: MetricsOptions): TrialMetric
     target,
     band,
     resolution,
-    bandBasis: useRes ? 'resolution' : 'relative',
+    bandBasis: useRes ? 'resolution' : useFloor ? 'floor' : 'relative',
     timeToBand: entry === null ? null : entry - t[0],
     converged,
     cycles: m,
