@@ -51,6 +51,7 @@ export function summary(m: EnergyModel, io: Io): void {
   if (m.landscape) {
     for (const w of m.landscape.wells) io.out(`well ${w.index}      q = ${fmt(w.q, 6)}, V = ${fmt(w.V, 6)}`);
     for (const b of m.landscape.barriers) io.out(`barrier     q = ${fmt(b.q, 6)}, V = ${fmt(b.V, 6)} between wells ${b.between[0]} and ${b.between[1]}`);
+    if (m.coverage) io.out(`recorded    H from ${fmt(m.coverage.energyMin)} to ${fmt(m.coverage.energyMax)} (0.5th-99.5th percentile per free run), q ${fmt(m.coverage.qMin)} .. ${fmt(m.coverage.qMax)}, |v| up to ${fmt(m.coverage.vMaxAbs)}: designs refuse targets above this range`);
   }
   if (m.structure.separable) {
     io.out(`structure   H = 1/2 M(q) v^2 + V(q), M(q) = ${m.structure.massFormula}`);
