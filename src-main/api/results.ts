@@ -1,3 +1,4 @@
+import type { TrialMetrics } from '../engine/trial/metrics.ts';
 import type { TrialSettings } from '../design/trial-settings.ts';
 import type { EnergyModel } from '../engine/learn/index.ts';
 import type { ControllerDesign } from '../design/types.ts';
@@ -119,30 +120,14 @@ export interface TrialTrace {
   samples: number;
 }
 
-/** Trial metrics as JSON (engine/trial TrialMetrics; values JSON cannot hold arrive as null). */
-export interface TrialMetricsJson {
-  target: number;
-  band: number;
-  resolution: number | null;
-  bandBasis: 'relative' | 'floor' | 'resolution';
-  timeToBand: number | null;
-  converged: boolean;
-  cycles: number;
-  finalEnergy: number | null;
-  finalError: number | null;
-  finalRelError: number | null;
-  spread: number | null;
-  spreadStd: number | null;
-  amplitude: number | null;
-  qMin: number | null;
-  qMax: number | null;
-  J: number | null;
-  peakU: number | null;
-  workAbs: number | null;
-  workNet: number | null;
-  totalVariation: number | null;
-  saturatedShare: number | null;
-}
+/**
+ * Trial metrics as JSON: engine/trial TrialMetrics, where every number that may be non-finite
+ * (JSON writes NaN and infinities as null) arrives as number | null; target, band and the cycle
+ * count are always finite.
+ */
+export type TrialMetricsJson = {
+  [K in keyof TrialMetrics]: K extends 'target' | 'band' | 'cycles' ? TrialMetrics[K] : TrialMetrics[K] extends number ? number | null : TrialMetrics[K];
+};
 
 export interface TrialRow {
   name: string;

@@ -3,16 +3,13 @@
 // parameters and limits, and the supervisor's stages and switching conditions. The simulator,
 // the C export and the report all read this one shape. Plain JSON data only.
 import type { Coordinate } from '../engine/types.ts';
+import type { PlanCondition, PlanTarget } from '../engine/plan/types.ts';
 
 export const DESIGN_FORMAT = 'ergostat-controller-design';
 export const DESIGN_VERSION = 1;
 
-/** What the user asked for, and the energy it resolves to. */
-export type TargetSpec =
-  | { kind: 'energy'; energy: number }
-  | { kind: 'amplitude'; amplitude: number; energy: number }
-  | { kind: 'at-rest'; well: number; energy: number }
-  | { kind: 'rotation'; speed: number; energy: number };
+/** What the user asked for, and the energy it resolves to (the planner's shape, engine/plan/types.ts). */
+export type TargetSpec = PlanTarget;
 
 /** One supervisor stage: a level-hold law toward its own target energy. */
 export interface Stage {
@@ -26,19 +23,11 @@ export interface Stage {
 
 /**
  * A switching condition, all present clauses must hold (AND): q above/below a value (for angles
- * compared on the unwrapped angle unless `wrapped` is true), the sign of v, the energy above/below
- * a value. Conditions are evaluated once per controller sample, in order; the first that holds fires.
+ * compared on the unwrapped angle unless `wrapped` is true), v > 0 (vSign 1) or v < 0 (vSign -1),
+ * the energy above/below a value. Conditions are evaluated once per controller sample, in order;
+ * the first that holds fires. Declared once, by the planner (engine/plan/types.ts).
  */
-export interface SwitchCondition {
-  qAbove?: number;
-  qBelow?: number;
-  /** +1: v > 0, -1: v < 0. */
-  vSign?: 1 | -1;
-  energyAbove?: number;
-  energyBelow?: number;
-  /** Compare q after wrapping to [-pi, pi) (angles only). */
-  wrapped?: boolean;
-}
+export type SwitchCondition = PlanCondition;
 
 export interface Transition {
   from: number;

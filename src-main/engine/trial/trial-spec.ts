@@ -3,13 +3,14 @@
 // energy as a formula, the controller design, and the simulation settings.
 // buildTrial() validates the description once, naming the field, and compiles it to the objects
 // simulate() drives; runTrialSpec() runs it and scores it.
+import type { LevelHoldDesign } from '../control/level-hold.ts';
 import type { Coordinate, EnergyFunction } from '../types.ts';
-import type { Controller, EstimatorOptions, SensorOptions, TrialPlant } from './types.ts';
+import type { Controller, EstimatorOptions, TrialPlant } from './types.ts';
 import { energyFromFormula } from '../formula/index.ts';
 import { compilePlant, withParams, type PlantSpec } from '../plant/index.ts';
 import { energyPump, openLoop } from './energy-pump.ts';
 import { levelHoldController } from './level-hold-adapter.ts';
-import { simulate, type SimulateResult } from './simulate.ts';
+import { simulate, type SimulateOptions, type SimulateResult } from './simulate.ts';
 import { trialMetrics, type TrialMetrics } from './metrics.ts';
 import { sensorSigmas } from './energy-resolution.ts';
 import { Pcg32 } from '../signal/random.ts';
@@ -23,37 +24,19 @@ export interface EnergySpec {
   lambda?: number;
 }
 
-/** The level-hold design as plain data: LevelHoldDesign of engine/control without the energy (taken from trial.energy). */
-export interface LevelHoldSpec {
-  kind: 'level-hold';
-  target: number;
-  inputGain: number;
-  Q: number;
-  R: number;
-  eps?: number;
-  lambda?: number;
-  uMax?: number;
-  rateMax?: number;
-  meanB2?: number;
-  integral?: { Qw: number; antiWindup?: 'conditional' | 'none' };
-}
+/** The level-hold design as plain data: LevelHoldDesign of engine/control without the energy (taken from trial.energy), with the target as a number. */
+export type LevelHoldSpec = Omit<LevelHoldDesign, 'energy' | 'target'> & { kind: 'level-hold'; target: number };
 
 export type ControllerSpec =
   | LevelHoldSpec
   | { kind: 'energy-pump'; target: number; gain: number; uMax?: number; inputGain?: number; eps?: number; integral?: number }
   | { kind: 'open-loop' };
 
-export interface TrialSpec {
+/** The simulation settings are simulate()'s own (documented there); the rest is plain data. */
+export interface TrialSpec extends Pick<SimulateOptions, 'q0' | 'v0' | 'duration' | 'rateHz' | 'innerSteps' | 'delaySamples' | 'sensor'> {
   plant: PlantSpec;
   energy: EnergySpec;
   controller: ControllerSpec;
-  q0: number;
-  v0: number;
-  duration: number;
-  rateHz?: number;
-  innerSteps?: number;
-  delaySamples?: number;
-  sensor?: SensorOptions;
   /** 'difference' (default, optional cutoffHz) or 'observer' on the nominal plant formula, or 'ideal'. */
   estimator?: { kind: 'difference'; cutoffHz?: number } | { kind: 'observer'; bandwidthHz?: number; zeta?: number } | { kind: 'ideal' };
   /** Seed of the sensor noise (PCG32, stream = noiseStream). Default 0. */
