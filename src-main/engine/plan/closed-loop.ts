@@ -5,6 +5,7 @@
 // simulator (engine/trial/simulate.ts), but with the controller seeing the true state, no trace,
 // and an observer that may stop the run early (a hop that has failed or settled needs no more time).
 import type { Controller } from '../trial/types.ts';
+import { rk4HeldStep } from '../ode/rk4-held.ts';
 
 export interface LoopProblem {
   accel: (q: number, v: number, u: number, t: number) => number;
@@ -34,6 +35,7 @@ export function runClosedLoop(p: LoopProblem): LoopResult {
   const h = T / inner;
   const n = Math.round(p.maxDuration * p.rateHz);
   const line = new Float64Array(delay + 1);
+  const qv = new Float64Array(2);
   let head = 0;
   const f = p.accel;
   const ctl = p.controller;
@@ -48,16 +50,9 @@ export function runClosedLoop(p: LoopProblem): LoopResult {
     head = head === delay ? 0 : head + 1;
     const u = delay === 0 ? cmd : line[head];
     for (let j = 0; j < inner; j++) {
-      const ti = t + j * h;
-      const a1 = f(q, v, u, ti);
-      const q2 = q + 0.5 * h * v, v2 = v + 0.5 * h * a1;
-      const a2 = f(q2, v2, u, ti + 0.5 * h);
-      const q3 = q + 0.5 * h * v2, v3 = v + 0.5 * h * a2;
-      const a3 = f(q3, v3, u, ti + 0.5 * h);
-      const q4 = q + h * v3, v4 = v + h * a3;
-      const a4 = f(q4, v4, u, ti + h);
-      q += (h / 6) * (v + 2 * v2 + 2 * v3 + v4);
-      v += (h / 6) * (a1 + 2 * a2 + 2 * a3 + a4);
+      rk4HeldStep(f, q, v, u, t + j * h, h, qv);
+      q = qv[0];
+      v = qv[1];
     }
     if (!Number.isFinite(q) || !Number.isFinite(v) || !Number.isFinite(cmd)) return { status: 'diverged', t: t + T, q, v, samples: k + 1 };
   }

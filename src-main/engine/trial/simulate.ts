@@ -7,6 +7,7 @@
 // then integrate the plant over [t_k, t_k + T] with the delayed input.
 // The RK4 step is written out for the two-state system (q, v) rather than calling ode/rk4.ts:
 // same formula, no closure or array traffic in the innermost loop.
+import { rk4HeldStep } from '../ode/rk4-held.ts';
 import type { EnergyFunction } from '../types.ts';
 import type { Controller, EstimatorOptions, SensorOptions, Trace, TrialPlant } from './types.ts';
 import { makeSensor } from './sensor.ts';
@@ -103,6 +104,8 @@ export function simulate(options: SimulateOptions): SimulateResult {
   };
   if (hasStage) tr.stage = new Float64Array(rows);
 
+  const qv = new Float64Array(2);
+
   const line = new Float64Array(delay + 1); // delay line, ring buffer
   let head = 0;
   let q = q0, v = v0, t = t0;
@@ -141,18 +144,10 @@ export function simulate(options: SimulateOptions): SimulateResult {
       row++;
     }
     // Plant over one controller period with u held: `inner` RK4 steps.
-    let ti = t;
     for (let j = 0; j < inner; j++) {
-      const a1 = acc(q, v, u, ti);
-      const q2 = q + 0.5 * h * v, v2 = v + 0.5 * h * a1;
-      const a2 = acc(q2, v2, u, ti + 0.5 * h);
-      const q3 = q + 0.5 * h * v2, v3 = v + 0.5 * h * a2;
-      const a3 = acc(q3, v3, u, ti + 0.5 * h);
-      const q4 = q + h * v3, v4 = v + h * a3;
-      const a4 = acc(q4, v4, u, ti + h);
-      q += (h / 6) * (v + 2 * v2 + 2 * v3 + v4);
-      v += (h / 6) * (a1 + 2 * a2 + 2 * a3 + a4);
-      ti = t + (j + 1) * h;
+      rk4HeldStep(acc, q, v, u, t + j * h, h, qv);
+      q = qv[0];
+      v = qv[1];
     }
     uPrev = u;
     if (!Number.isFinite(q) || !Number.isFinite(v)) {

@@ -6,6 +6,7 @@
 //   plant: predict with one RK4 step of the model under the applied u, correct by the innovation.
 // Angles: readings arrive wrapped to [-pi, pi); every difference is wrapped back to (-pi, pi], so
 // the estimate is continuous (unwrapped) as long as |dq| < pi per sample.
+import { rk4HeldStep } from '../ode/rk4-held.ts';
 import type { Coordinate } from '../types.ts';
 import type { EstimatorOptions } from './types.ts';
 import { wrapAngle } from './sensor.ts';
@@ -58,22 +59,16 @@ export function makeVelocityEstimator(options: Exclude<EstimatorOptions, { kind:
     const g1 = T * 2 * zeta * wo;
     const g2 = T * wo * wo;
     const f = options.model.accel.bind(options.model);
+    const qv = new Float64Array(2);
     const est: VelocityEstimator = {
       q: 0,
       v: 0,
       reset(y0) { est.q = y0; est.v = 0; },
       update(y, uPrev, t) {
         // Predict: RK4 on (q, v)' = (v, f(q, v, u, t)) with u held (Hairer, Nørsett & Wanner, Table 1.2).
-        const q0 = est.q, v0 = est.v, h = T, t0 = t - T;
-        const a1 = f(q0, v0, uPrev, t0);
-        const q2 = q0 + 0.5 * h * v0, v2 = v0 + 0.5 * h * a1;
-        const a2 = f(q2, v2, uPrev, t0 + 0.5 * h);
-        const q3 = q0 + 0.5 * h * v2, v3 = v0 + 0.5 * h * a2;
-        const a3 = f(q3, v3, uPrev, t0 + 0.5 * h);
-        const q4 = q0 + h * v3, v4 = v0 + h * a3;
-        const a4 = f(q4, v4, uPrev, t0 + h);
-        let qp = q0 + (h / 6) * (v0 + 2 * v2 + 2 * v3 + v4);
-        const vp = v0 + (h / 6) * (a1 + 2 * a2 + 2 * a3 + a4);
+        rk4HeldStep(f, est.q, est.v, uPrev, t - T, T, qv);
+        let qp = qv[0];
+        const vp = qv[1];
         // Innovation; for angles wrapped to (-pi, pi], which unwraps the reading against the estimate.
         const e = diff(y, qp);
         qp += g1 * e;
