@@ -9,7 +9,21 @@ function isNotice(x: unknown): x is Notice & { kind?: string } {
   return typeof x === 'object' && x !== null && typeof (x as Notice).message === 'string';
 }
 
-export function summarizeRecording(e: RecordingEntry): RecordingSummary {
+// Summaries scan every sample once per stored entry: cached by the entry object the store holds
+// (peek/peekAll return it unchanged until the entry is replaced), since project.state runs after
+// every operation and recordings can hold millions of samples.
+const summaryCache = new WeakMap<object, RecordingSummary>();
+
+function cachedSummary(e: Readonly<RecordingEntry>): RecordingSummary {
+  let s = summaryCache.get(e);
+  if (!s) {
+    s = summarizeRecording(e);
+    summaryCache.set(e, s);
+  }
+  return s;
+}
+
+export function summarizeRecording(e: Readonly<RecordingEntry>): RecordingSummary {
   const runs = e.recording.runs.map((r) => {
     const n = r.t.length;
     const duration = n > 1 ? r.t[n - 1] - r.t[0] : 0;
@@ -43,7 +57,7 @@ export class Workspace {
     return {
       path: this.path,
       dirty: this.dirty,
-      recordings: this.store.recordings.peekAll().map(summarizeRecording),
+      recordings: this.store.recordings.peekAll().map(cachedSummary),
       models: docs(this.store.models),
       designs: docs(this.store.designs),
       trials: this.store.trials.peekAll().map((t) => ({ name: t.name, kind: t.kind })),
@@ -98,6 +112,6 @@ export class Workspace {
       recording: result.recording,
     });
     this.dirty = true;
-    return summarizeRecording(this.store.recordings.get(name)!);
+    return cachedSummary(this.store.recordings.peek(name)!);
   }
 }
