@@ -19,7 +19,7 @@ import { ModelFileError } from '../design/read-model.ts';
 import { DesignError, readDesign } from '../design/validate.ts';
 import type { ControllerDesign } from '../design/types.ts';
 import { PlantSpecError } from '../engine/plant/index.ts';
-import { traceCsv } from '../engine/trial/index.ts';
+import { traceToCsv } from '../export/csv.ts';
 import { MAX_TRIAL_SAMPLES, runDesignTrial, type DesignTrialResult, type TrialSettings } from '../design/run-trial.ts';
 
 const USAGE = [
@@ -107,7 +107,7 @@ export const run: Verb = async (argv, io) => {
     process.removeListener('SIGINT', onSig);
   }
   try {
-    await writeFile(s.out, traceCsv(r.trace));
+    await writeFile(s.out, traceToCsv(r.trace));
   } catch (e) {
     io.err(`ergostat trial: cannot write ${s.out} (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
     return 1;

@@ -17,4 +17,4 @@ export {
   buildTrial, buildController, compileEnergySpec, runTrialSpec,
   type TrialSpec, type PlantSpec, type EnergySpec, type ControllerSpec, type LevelHoldSpec, type BuiltTrial, type TrialOutcome,
 } from './trial-spec.ts';
-export { traceCsv, metricsLine, monteCarloLine, type MonteCarloSummaryInput } from './report.ts';
+export { metricsLine, monteCarloLine, type MonteCarloSummaryInput } from './report.ts';

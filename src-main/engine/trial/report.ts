@@ -1,22 +1,7 @@
-// Text forms of a trial for the CLI and export (docs/trial-format.md): the trace as CSV with
-// columns t,q,v,u,H[,stage], one JSON line with the metrics of a trial, and one JSON line that
-// summarises a Monte Carlo batch. Pure string building; writing files is the caller's job.
-import type { Trace } from './types.ts';
+// Text forms of a trial for the CLI and export (docs/trial-format.md): one JSON line with the
+// metrics of a trial, and one JSON line that summarises a Monte Carlo batch (the trace as CSV is
+// src-main/export/csv.ts). Pure string building; writing files is the caller's job.
 import type { TrialMetrics } from './metrics.ts';
-
-/** CSV text: header t,q,v,u,H (plus stage when present), one row per trace sample, shortest round-trip numbers. */
-export function traceCsv(trace: Trace): string {
-  const { t, q, v, u, H, stage } = trace;
-  const n = t.length;
-  const lines = new Array<string>(n + 1);
-  lines[0] = stage ? 't,q,v,u,H,stage' : 't,q,v,u,H';
-  for (let i = 0; i < n; i++) {
-    let row = `${t[i]},${q[i]},${v[i]},${u[i]},${H[i]}`;
-    if (stage) row += `,${stage[i]}`;
-    lines[i + 1] = row;
-  }
-  return lines.join('\n') + '\n';
-}
 
 /** One JSON line for one trial: {"kind":"trial","status",...,"converged",...metrics}. Non-finite numbers become null. */
 export function metricsLine(status: string, message: string, metrics: TrialMetrics | null): string {

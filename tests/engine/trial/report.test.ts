@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { metricsLine, monteCarloLine, traceCsv } from '../../../src-main/engine/trial/report.ts';
+import { metricsLine, monteCarloLine } from '../../../src-main/engine/trial/report.ts';
 import type { TrialMetrics } from '../../../src-main/engine/trial/metrics.ts';
 
 const base: TrialMetrics = {
@@ -9,17 +9,6 @@ const base: TrialMetrics = {
 };
 
 describe('trial text forms', () => {
-  it('writes trial.csv with the header t,q,v,u,H[,stage] and numbers that read back exactly', () => {
-    const tr = { t: Float64Array.of(0, 0.001), q: Float64Array.of(0.1, 1 / 3), v: Float64Array.of(-2, 1e-20), u: Float64Array.of(0, -0.5), H: Float64Array.of(1, 2) };
-    const csv = traceCsv(tr);
-    const lines = csv.trim().split('\n');
-    expect(lines[0]).toBe('t,q,v,u,H');
-    expect(lines.length).toBe(3);
-    expect(Number(lines[2].split(',')[1])).toBe(1 / 3); // shortest round-trip form (ECMA-262 Number::toString)
-    expect(Number(lines[2].split(',')[2])).toBe(1e-20);
-    expect(traceCsv({ ...tr, stage: Float64Array.of(1, 2) }).split('\n')[0]).toBe('t,q,v,u,H,stage');
-  });
-
   it('prints one JSON line of metrics, NaN as null', () => {
     const line = metricsLine('ok', 'completed', { ...base, finalRelError: NaN });
     expect(line.includes('\n')).toBe(false);
